@@ -1,0 +1,8 @@
+const swc = { jsc: { parser: { syntax: 'typescript' }, target: 'es2022' }, module: { type: 'commonjs' } };
+/** Unit tests of the pure package: engine, limits, units, schedule rules. */
+module.exports = {
+  testEnvironment: 'node',
+  roots: ['<rootDir>/src', '<rootDir>/bin'],
+  testMatch: ['**/*.spec.ts'],
+  transform: { '^.+\\.(t|j)s$': ['@swc/jest', swc] },
+};
