@@ -1,0 +1,4 @@
+export * from './errors';
+export * from './constraints';
+export * from './auth';
+export * from './projects';
