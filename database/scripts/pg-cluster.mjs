@@ -120,10 +120,20 @@ export function startCluster({ dataDir, port, database = 'sagline' }) {
   };
 }
 
+/** Stops a cluster started earlier from `dataDir`, if it runs. */
+export function stopCluster({ dataDir }) {
+  const bin = findPgBin();
+  const pgData = path.resolve(dataDir, 'pg');
+  if (!bin || !fs.existsSync(path.join(pgData, 'PG_VERSION'))) return;
+  const args = [path.join(bin, 'pg_ctl'), '-D', pgData, '-m', 'fast', '-w', 'stop'];
+  const r = process.getuid?.() === 0 ? spawnSync('runuser', ['-u', 'postgres', '--', ...args]) : spawnSync(args[0], args.slice(1));
+  log(r.status === 0 ? 'stopped' : 'was not running');
+}
+
 // CLI: node database/scripts/pg-cluster.mjs start|stop [dataDir] [port]
 if (import.meta.url === `file://${process.argv[1]}`) {
   const [cmd = 'start', dataDir = '.data/dev', port = '54329'] = process.argv.slice(2);
-  const cluster = startCluster({ dataDir, port: Number(port) });
-  if (cmd === 'start') console.log(cluster.url);
-  else if (cmd === 'stop') cluster.stop();
+  if (cmd === 'start') console.log(startCluster({ dataDir, port: Number(port) }).url);
+  else if (cmd === 'stop') stopCluster({ dataDir });
+  else throw new Error(`unknown command ${cmd}: use start or stop`);
 }
