@@ -1,0 +1,111 @@
+import type { SheetData } from './cells';
+import type { BoundColumn } from './header';
+import { placeLabel, type ProblemList, type Where } from './problems';
+import { shown } from './read-cells';
+import type { ScheduleMember } from './types';
+
+/**
+ * Plausibility warnings. They never block an import; they point at the usual
+ * slips (a value in the wrong unit, a depth in inches under an mm header).
+ *
+ * - SLENDER: governing length / depth > 40. The governing length is the longest
+ *   span, or twice an overhang or a cantilever (the effective length the
+ *   checks use, IBC Table 1604.3 footnote on cantilevers). 40 is a rule of
+ *   thumb for deflection-governed beams and joists (common practice, no source).
+ * - I_OUTLIER: I more than 10 times above or below the median I of the other
+ *   members with the same category and material whose governing length is
+ *   within a factor 1.25 of this member's; only when there are at least 5
+ *   such members (Sagline's own rule).
+ */
+export const SLENDER_RATIO = 40;
+export const I_OUTLIER_FACTOR = 10;
+export const I_PEER_LENGTH_RATIO = 1.25;
+export const I_MIN_PEERS = 5;
+
+/** Longest span, or twice the longest overhang or cantilever, m. */
+export function governingLength(m: ScheduleMember): number {
+  if (m.supports === 'cantilever-left' || m.supports === 'cantilever-right') return 2 * m.spans[0];
+  return Math.max(...m.spans, 2 * m.leftOverhang, 2 * m.rightOverhang);
+}
+
+interface Columns {
+  depth?: BoundColumn;
+  I?: BoundColumn;
+  spans?: BoundColumn;
+}
+
+function at(sheet: SheetData, m: ScheduleMember, col: BoundColumn | undefined): Where {
+  return {
+    sheet: sheet.name,
+    row: m.sourceRow,
+    column: col ? { letter: col.letter, header: col.header } : null,
+    mark: m.mark,
+    value: col ? sheet.rows[m.sourceRow - 1]?.[col.index] : undefined,
+  };
+}
+
+export function addWarnings(sheet: SheetData, members: readonly ScheduleMember[], cols: Columns, problems: ProblemList): void {
+  for (const m of members) {
+    if (m.loads.length === 0) {
+      const w = at(sheet, m, undefined);
+      problems.warning('NO_LOADS', w, `${placeLabel(w)}: member ${m.mark} has no loads, so there is nothing to check. Fill in its load columns (D, L, …) or add rows for it on the Loads sheet.`);
+    }
+    if (m.depth !== null) {
+      const g = governingLength(m);
+      const ratio = g / m.depth;
+      if (ratio > SLENDER_RATIO) {
+        const w = at(sheet, m, cols.depth);
+        problems.warning(
+          'SLENDER',
+          w,
+          `${placeLabel(w)}: span-to-depth ratio is ${ratio.toFixed(0)} (${shown(g, cols.spans?.unit)} / ${shown(m.depth, cols.depth?.unit)}), above ${SLENDER_RATIO}. Check the span, the depth and the units in their headers.`,
+        );
+      }
+    }
+  }
+  addInertiaOutliers(sheet, members, cols, problems);
+}
+
+function median(values: number[]): number {
+  const s = [...values].sort((a, b) => a - b);
+  const mid = s.length >> 1;
+  return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
+}
+
+function addInertiaOutliers(sheet: SheetData, members: readonly ScheduleMember[], cols: Columns, problems: ProblemList): void {
+  const groups = new Map<string, { m: ScheduleMember; g: number }[]>();
+  for (const m of members) {
+    const key = `${m.category}\u0000${m.material}`;
+    const list = groups.get(key) ?? [];
+    list.push({ m, g: governingLength(m) });
+    groups.set(key, list);
+  }
+  const found: { m: ScheduleMember; message: string }[] = [];
+  for (const list of groups.values()) {
+    if (list.length <= I_MIN_PEERS) continue;
+    list.sort((a, b) => a.g - b.g);
+    let lo = 0;
+    let hi = 0;
+    for (let i = 0; i < list.length; i++) {
+      const { m, g } = list[i];
+      while (list[lo].g < g / I_PEER_LENGTH_RATIO) lo++;
+      while (hi + 1 < list.length && list[hi + 1].g <= g * I_PEER_LENGTH_RATIO) hi++;
+      const peers: number[] = [];
+      for (let j = lo; j <= hi; j++) if (j !== i) peers.push(list[j].m.I);
+      if (peers.length < I_MIN_PEERS) continue;
+      const med = median(peers);
+      const factor = m.I > med ? m.I / med : med / m.I;
+      if (factor <= I_OUTLIER_FACTOR) continue;
+      const unit = cols.I?.unit;
+      found.push({
+        m,
+        message: `I = ${shown(m.I, unit)} is ${factor.toFixed(0)} times ${m.I > med ? 'larger' : 'smaller'} than the median I (${shown(med, unit)}) of ${peers.length} other ${m.category} ${m.material} members of similar span (${shown(list[lo].g, cols.spans?.unit)} to ${shown(list[hi].g, cols.spans?.unit)}). Check the value and the unit in the I header (e.g. [mm^4] against [10^6 mm^4], or [in^4]).`,
+      });
+    }
+  }
+  found.sort((a, b) => a.m.sourceRow - b.m.sourceRow);
+  for (const { m, message } of found) {
+    const w = at(sheet, m, cols.I);
+    problems.warning('I_OUTLIER', w, `${placeLabel(w)}: ${message}`);
+  }
+}
