@@ -14,12 +14,14 @@ import type { ScheduleMember } from './types';
  *   thumb for deflection-governed beams and joists (common practice, no source).
  * - I_OUTLIER: I more than 10 times above or below the median I of the other
  *   members with the same category and material whose governing length is
- *   within a factor 1.25 of this member's; only when there are at least 5
- *   such members (Sagline's own rule).
+ *   within a factor 1.25 of this member's and, when both have a depth, whose
+ *   depth is within a factor 1.5 (so joists are not compared with the girders
+ *   they sit on); only when there are at least 5 such members (Sagline's own rule).
  */
 export const SLENDER_RATIO = 40;
 export const I_OUTLIER_FACTOR = 10;
 export const I_PEER_LENGTH_RATIO = 1.25;
+export const I_PEER_DEPTH_RATIO = 1.5;
 export const I_MIN_PEERS = 5;
 
 /** Longest span, or twice the longest overhang or cantilever, m. */
@@ -66,6 +68,12 @@ export function addWarnings(sheet: SheetData, members: readonly ScheduleMember[]
   addInertiaOutliers(sheet, members, cols, problems);
 }
 
+function similarDepth(a: ScheduleMember, b: ScheduleMember): boolean {
+  if (a.depth === null || b.depth === null) return true;
+  const r = a.depth > b.depth ? a.depth / b.depth : b.depth / a.depth;
+  return r <= I_PEER_DEPTH_RATIO;
+}
+
 function median(values: number[]): number {
   const s = [...values].sort((a, b) => a - b);
   const mid = s.length >> 1;
@@ -91,7 +99,7 @@ function addInertiaOutliers(sheet: SheetData, members: readonly ScheduleMember[]
       while (list[lo].g < g / I_PEER_LENGTH_RATIO) lo++;
       while (hi + 1 < list.length && list[hi + 1].g <= g * I_PEER_LENGTH_RATIO) hi++;
       const peers: number[] = [];
-      for (let j = lo; j <= hi; j++) if (j !== i) peers.push(list[j].m.I);
+      for (let j = lo; j <= hi; j++) if (j !== i && similarDepth(m, list[j].m)) peers.push(list[j].m.I);
       if (peers.length < I_MIN_PEERS) continue;
       const med = median(peers);
       const factor = m.I > med ? m.I / med : med / m.I;
@@ -99,7 +107,7 @@ function addInertiaOutliers(sheet: SheetData, members: readonly ScheduleMember[]
       const unit = cols.I?.unit;
       found.push({
         m,
-        message: `I = ${shown(m.I, unit)} is ${factor.toFixed(0)} times ${m.I > med ? 'larger' : 'smaller'} than the median I (${shown(med, unit)}) of ${peers.length} other ${m.category} ${m.material} members of similar span (${shown(list[lo].g, cols.spans?.unit)} to ${shown(list[hi].g, cols.spans?.unit)}). Check the value and the unit in the I header (e.g. [mm^4] against [10^6 mm^4], or [in^4]).`,
+        message: `I = ${shown(m.I, unit)} is ${factor.toFixed(0)} times ${m.I > med ? 'larger' : 'smaller'} than the median I (${shown(med, unit)}) of ${peers.length} other ${m.category} ${m.material} members of similar span (${shown(list[lo].g, cols.spans?.unit)} to ${shown(list[hi].g, cols.spans?.unit)})${m.depth !== null ? ' and depth' : ''}. Check the value and the unit in the I header (e.g. [mm^4] against [10^6 mm^4], or [in^4]).`,
       });
     }
   }
