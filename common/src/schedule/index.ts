@@ -46,7 +46,7 @@ export { parseSchedule, DEFAULT_MAX_PROBLEMS, DEFAULT_MAX_ROWS } from './parse-s
 export { markKey, LONG_SPAN_M } from './parse-members';
 export { memberBeamInput, memberLength, memberLoads, memberSupports } from './member-model';
 export { diffMembers, memberChanges, type FieldChange, type MemberChange, type MemberDiff } from './diff';
-export { governingLength, I_MIN_PEERS, I_OUTLIER_FACTOR, I_PEER_DEPTH_RATIO, I_PEER_LENGTH_RATIO, SLENDER_RATIO } from './warnings';
+export { governingLength, I_MIN_PEERS, I_OUTLIER_FACTOR, I_PEER_LENGTH_RATIO, SLENDER_RATIO } from './warnings';
 export { TEMPLATE_HELP, codeTables, columnHelpRows, unitSystemNote, type ColumnHelpRow } from './template-help';
 export { SHEET_NAMES, findSheet } from './sheets';
 export { csvSheet, parseCsv } from './csv';

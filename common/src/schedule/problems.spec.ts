@@ -281,9 +281,14 @@ describe('warnings (never block an import)', () => {
     expect(problems).toEqual([
       expect.objectContaining({
         severity: 'warning', code: 'I_OUTLIER', row: 8, column: 'I [10^6 mm^4] (column K)', mark: 'B-slip',
-        message: 'Members row 8, I [10^6 mm^4] (column K): I = 0.19 ×10⁶ mm⁴ is 1011 times smaller than the median I (188 ×10⁶ mm⁴) of 6 other floor steel members of similar span (7.00 m to 7.50 m) and depth. Check the value and the unit in the I header (e.g. [mm^4] against [10^6 mm^4], or [in^4]).',
+        message: 'Members row 8, I [10^6 mm^4] (column K): I = 0.19 ×10⁶ mm⁴ is 1011 times smaller than the 188 ×10⁶ mm⁴ that 6 other floor steel members of similar span (7.00 m to 7.50 m) would have at its depth of 403 mm (median I / depth³). Check the value and the unit in the I header (e.g. [mm^4] against [10^6 mm^4], or [in^4]).',
       }),
     ]);
+    // Without depths, I itself is compared.
+    const noDepth = [...peers, slip].map((r) => ({ ...r, 'Depth [mm]': null }));
+    expect(only(parseSI(noDepth).problems, 'I_OUTLIER').message).toBe(
+      'Members row 8, I [10^6 mm^4] (column K): I = 0.19 ×10⁶ mm⁴ is 1011 times smaller than the median I (188 ×10⁶ mm⁴) of 6 other floor steel members of similar span (7.00 m to 7.50 m). Check the value and the unit in the I header (e.g. [mm^4] against [10^6 mm^4], or [in^4]).',
+    );
   });
 
   it('no I warning with fewer than 5 similar members, or spans far apart', () => {
@@ -291,10 +296,11 @@ describe('warnings (never block an import)', () => {
     expect(parseSI([...few, siRow({ Mark: 'X', 'I [10^6 mm^4]': 1 })]).problems).toEqual([]);
     const far = [180, 186, 190, 200, 210].map((I, i) => siRow({ Mark: `B${i}`, 'Spans [m]': 3, 'I [10^6 mm^4]': I }));
     expect(parseSI([...far, siRow({ Mark: 'X', 'Spans [m]': 12, 'I [10^6 mm^4]': 2500 })]).problems).toEqual([]);
-    // Joists and the much deeper girder they sit on are not compared.
+    // A joist and the much deeper girder it sits on: I differs 60 times, I / depth³ less than 5 times.
     const joists = [110, 112, 120, 118, 115].map((I, i) => siRow({ Mark: `J${i}`, 'Spans [m]': 7.2, 'Depth [mm]': 302, 'I [10^6 mm^4]': I }));
     expect(parseSI([...joists, siRow({ Mark: 'G', 'Spans [m]': 9, 'Depth [mm]': 720, 'I [10^6 mm^4]': 6700 })]).problems).toEqual([]);
-    expect(only(parseSI([...joists, siRow({ Mark: 'G', 'Spans [m]': 9, 'Depth [mm]': null, 'I [10^6 mm^4]': 6700 })]).problems, 'I_OUTLIER').mark).toBe('G');
+    const noDepths = [...joists, siRow({ Mark: 'G', 'Spans [m]': 9, 'I [10^6 mm^4]': 6700 })].map((r) => ({ ...r, 'Depth [mm]': null }));
+    expect(only(parseSI(noDepths).problems, 'I_OUTLIER').mark).toBe('G');
   });
 
   it('an unusually long span (probably mm under an m header)', () => {

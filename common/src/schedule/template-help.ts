@@ -21,7 +21,7 @@ export const TEMPLATE_HELP: readonly string[] = [
   'Signs: forces and line loads are positive downward (gravity), negative upward (uplift). Moments are positive counter-clockwise, with x to the right and y up.',
   'Formulas are fine when the file was last saved by a spreadsheet program, which stores each result; Sagline reads the stored result and says so when there is none.',
   'An upload with any error stores nothing. The report lists each problem with sheet, row, column and how to fix it.',
-  `Warnings do not block an upload: a span more than ${SLENDER_RATIO} times the depth, or an I more than ${I_OUTLIER_FACTOR} times above or below the median of members with the same category and material and a similar span and depth (often a unit slip such as mm^4 against 10^6 mm^4).`,
+  `Warnings do not block an upload: a span more than ${SLENDER_RATIO} times the depth, or an I more than ${I_OUTLIER_FACTOR} times above or below the median of members with the same category, material and a similar span (compared as I / depth³ where depths are given) (often a unit slip such as mm^4 against 10^6 mm^4).`,
   'Results assume linear-elastic, small-deflection, prismatic members on idealised supports, with no shear deformation, vibration, ponding or construction sequence. They support checking; they do not replace the judgement of the engineer of record or the adopted building code and its local amendments.',
 ];
 

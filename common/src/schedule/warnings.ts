@@ -12,16 +12,16 @@ import type { ScheduleMember } from './types';
  *   span, or twice an overhang or a cantilever (the effective length the
  *   checks use, IBC Table 1604.3 footnote on cantilevers). 40 is a rule of
  *   thumb for deflection-governed beams and joists (common practice, no source).
- * - I_OUTLIER: I more than 10 times above or below the median I of the other
- *   members with the same category and material whose governing length is
- *   within a factor 1.25 of this member's and, when both have a depth, whose
- *   depth is within a factor 1.5 (so joists are not compared with the girders
- *   they sit on); only when there are at least 5 such members (Sagline's own rule).
+ * - I_OUTLIER: compared with the other members of the same category and
+ *   material whose governing length is within a factor 1.25 of this member's
+ *   (at least 5 of them), I is more than 10 times above or below their median.
+ *   Where depths are given, I / depth³ is compared instead of I, so that a
+ *   joist is not measured against the deeper girder it sits on; members with
+ *   and without a depth are not mixed (Sagline's own rule).
  */
 export const SLENDER_RATIO = 40;
 export const I_OUTLIER_FACTOR = 10;
 export const I_PEER_LENGTH_RATIO = 1.25;
-export const I_PEER_DEPTH_RATIO = 1.5;
 export const I_MIN_PEERS = 5;
 
 /** Longest span, or twice the longest overhang or cantilever, m. */
@@ -68,12 +68,6 @@ export function addWarnings(sheet: SheetData, members: readonly ScheduleMember[]
   addInertiaOutliers(sheet, members, cols, problems);
 }
 
-function similarDepth(a: ScheduleMember, b: ScheduleMember): boolean {
-  if (a.depth === null || b.depth === null) return true;
-  const r = a.depth > b.depth ? a.depth / b.depth : b.depth / a.depth;
-  return r <= I_PEER_DEPTH_RATIO;
-}
-
 function median(values: number[]): number {
   const s = [...values].sort((a, b) => a - b);
   const mid = s.length >> 1;
@@ -81,11 +75,13 @@ function median(values: number[]): number {
 }
 
 function addInertiaOutliers(sheet: SheetData, members: readonly ScheduleMember[], cols: Columns, problems: ProblemList): void {
-  const groups = new Map<string, { m: ScheduleMember; g: number }[]>();
+  // Members with a depth are compared by I / depth³ (a shape factor), the others by I;
+  // the two kinds are never mixed.
+  const groups = new Map<string, { m: ScheduleMember; g: number; k: number }[]>();
   for (const m of members) {
-    const key = `${m.category}\u0000${m.material}`;
+    const key = `${m.category}\u0000${m.material}\u0000${m.depth === null ? 'I' : 'k'}`;
     const list = groups.get(key) ?? [];
-    list.push({ m, g: governingLength(m) });
+    list.push({ m, g: governingLength(m), k: m.depth === null ? m.I : m.I / m.depth ** 3 });
     groups.set(key, list);
   }
   const found: { m: ScheduleMember; message: string }[] = [];
@@ -95,19 +91,24 @@ function addInertiaOutliers(sheet: SheetData, members: readonly ScheduleMember[]
     let lo = 0;
     let hi = 0;
     for (let i = 0; i < list.length; i++) {
-      const { m, g } = list[i];
+      const { m, g, k } = list[i];
       while (list[lo].g < g / I_PEER_LENGTH_RATIO) lo++;
       while (hi + 1 < list.length && list[hi + 1].g <= g * I_PEER_LENGTH_RATIO) hi++;
       const peers: number[] = [];
-      for (let j = lo; j <= hi; j++) if (j !== i && similarDepth(m, list[j].m)) peers.push(list[j].m.I);
+      for (let j = lo; j <= hi; j++) if (j !== i) peers.push(list[j].k);
       if (peers.length < I_MIN_PEERS) continue;
       const med = median(peers);
-      const factor = m.I > med ? m.I / med : med / m.I;
+      const factor = k > med ? k / med : med / k;
       if (factor <= I_OUTLIER_FACTOR) continue;
       const unit = cols.I?.unit;
+      const similar = `${peers.length} other ${m.category} ${m.material} members of similar span (${shown(list[lo].g, cols.spans?.unit)} to ${shown(list[hi].g, cols.spans?.unit)})`;
+      const expected =
+        m.depth === null
+          ? `than the median I (${shown(med, unit)}) of ${similar}`
+          : `than the ${shown(med * m.depth ** 3, unit)} that ${similar} would have at its depth of ${shown(m.depth, cols.depth?.unit)} (median I / depth³)`;
       found.push({
         m,
-        message: `I = ${shown(m.I, unit)} is ${factor.toFixed(0)} times ${m.I > med ? 'larger' : 'smaller'} than the median I (${shown(med, unit)}) of ${peers.length} other ${m.category} ${m.material} members of similar span (${shown(list[lo].g, cols.spans?.unit)} to ${shown(list[hi].g, cols.spans?.unit)})${m.depth !== null ? ' and depth' : ''}. Check the value and the unit in the I header (e.g. [mm^4] against [10^6 mm^4], or [in^4]).`,
+        message: `I = ${shown(m.I, unit)} is ${factor.toFixed(0)} times ${k > med ? 'larger' : 'smaller'} ${expected}. Check the value and the unit in the I header (e.g. [mm^4] against [10^6 mm^4], or [in^4]).`,
       });
     }
   }
