@@ -1,0 +1,47 @@
+import { Injectable, type CanActivate, type ExecutionContext } from '@nestjs/common';
+import { Reflector } from '@nestjs/core';
+import type { Request } from 'express';
+import type { ProjectRole } from '@sagline/common/api-types';
+import { ApiError } from '../common/api-error';
+import { AuthRepository } from './auth.repository';
+import { PROJECT_ACCESS, type ProjectAccess } from './project-access';
+
+export const PROJECT_ROLES_KEY = 'sagline:projectRoles';
+
+/**
+ * Decides who may use a `/projects/:projectId/...` route, from the roles that
+ * `@ProjectRole(...)` lists (none listed: any member). Not on the project, or
+ * no such project: 404 with the same message, so ids of other projects cannot
+ * be probed. On it with another role: 403. Admins pass wherever a manager would.
+ */
+@Injectable()
+export class ProjectRoleGuard implements CanActivate {
+  constructor(
+    private readonly reflector: Reflector,
+    private readonly auth: AuthRepository,
+  ) {}
+
+  async canActivate(context: ExecutionContext): Promise<boolean> {
+    const req = context.switchToHttp().getRequest<Request>();
+    const user = req.user;
+    if (!user) throw new ApiError('UNAUTHENTICATED', 'You are not signed in (or your session ended); sign in and try again.');
+    const allowed = this.reflector.getAllAndOverride<ProjectRole[] | undefined>(PROJECT_ROLES_KEY, [context.getHandler(), context.getClass()]) ?? [];
+
+    const raw = String(req.params.projectId ?? '');
+    const projectId = /^[1-9]\d{0,9}$/.test(raw) ? Number(raw) : NaN;
+    const notFound = new ApiError('NOT_FOUND', `Project ${raw} was not found, or you are not on its team.`);
+    if (!Number.isSafeInteger(projectId) || projectId > 2_147_483_647) throw notFound;
+
+    const found = await this.auth.projectRole(projectId, user.id);
+    if (!found || (!found.role && !user.isAdmin)) throw notFound;
+
+    const role = found.role;
+    const may = allowed.length === 0 || (role !== null && allowed.includes(role)) || (user.isAdmin && allowed.includes('manager'));
+    if (!may) {
+      throw new ApiError('FORBIDDEN', `Your role on this project (${role ?? 'none'}) cannot do this; it needs ${allowed.join(' or ')}. A manager can change your role.`);
+    }
+    const access: ProjectAccess = { projectId, role, myRole: role ?? 'admin', canManage: role === 'manager' || user.isAdmin };
+    (req as Request & { [PROJECT_ACCESS]?: ProjectAccess })[PROJECT_ACCESS] = access;
+    return true;
+  }
+}

@@ -1,0 +1,102 @@
+import type { Server } from 'node:http';
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { createKnex, type Knex } from '@sagline/database';
+import type { MailboxMessage } from '@sagline/common/api-types';
+import { createApp } from '../../src/app.factory';
+import { parseConfig, type AppConfig } from '../../src/config/app-config';
+import { startFakeSmtp, type FakeSmtp } from '../../src/mail/fake-smtp';
+import { OutboxService } from '../../src/mail/outbox.service';
+import { createTestDatabase } from './pg-admin';
+
+export const TEST_PUBLIC_URL = 'http://sagline.test';
+
+export interface TestAppOptions {
+  /** Environment overrides, as the api would read them (e.g. SIGN_IN_RATE_LIMIT). */
+  env?: Record<string, string>;
+  /** Start without the fake SMTP server (mail then fails and stays queued). */
+  withoutSmtp?: boolean;
+}
+
+/**
+ * One api over its own throwaway database, with a real fake SMTP server on
+ * random ports. `knex` is the test's own connection, for factories and for
+ * checking what was (not) written.
+ */
+export class TestApp {
+  app!: NestExpressApplication;
+  http!: Server;
+
+  private constructor(
+    readonly config: AppConfig,
+    readonly knex: Knex,
+    readonly mail: FakeSmtp | null,
+    private readonly dropDb: () => Promise<void>,
+  ) {}
+
+  static async start(options: TestAppOptions = {}): Promise<TestApp> {
+    const db = await createTestDatabase();
+    const mail = options.withoutSmtp ? null : await startFakeSmtp({ smtpPort: 0, httpPort: 0 });
+    const config = parseConfig({
+      NODE_ENV: 'test',
+      DATABASE_URL: db.url,
+      PUBLIC_URL: TEST_PUBLIC_URL,
+      // A closed port when there is no fake: connection refused at once.
+      SMTP_URL: mail?.smtpUrl ?? 'smtp://127.0.0.1:9',
+      MAILBOX_URL: mail?.mailboxUrl ?? 'http://127.0.0.1:9',
+      SIGN_IN_RATE_LIMIT: '1000/15m',
+      MAIL_RETRY_SECONDS: '0',
+      WEB_DIST: '/nonexistent-web-dist',
+      ...options.env,
+    });
+    const t = new TestApp(config, createKnex(db.url, { min: 0, max: 3 }), mail, db.drop);
+    await t.boot();
+    return t;
+  }
+
+  private async boot(): Promise<void> {
+    this.app = await createApp(this.config, { logger: ['error'] });
+    this.http = this.app.getHttpServer();
+  }
+
+  /** Closes the api and starts a new one on the same database (what a deploy or crash does). */
+  async restart(): Promise<void> {
+    await this.app.close();
+    await this.boot();
+  }
+
+  get outbox(): OutboxService {
+    return this.app.get(OutboxService);
+  }
+
+  /** Waits for background e-mail delivery, then returns what the fake SMTP server holds (newest first). */
+  async mailbox(): Promise<MailboxMessage[]> {
+    await this.outbox.settle();
+    if (!this.mail) throw new Error('this test app runs without SMTP');
+    return this.mail.messages();
+  }
+
+  /** Row counts of tables, to prove a refused request wrote nothing. */
+  async counts(tables: string[] = ['users', 'projects', 'levels', 'project_roles', 'invitations', 'activity', 'outbound_mail']): Promise<Record<string, number>> {
+    const out: Record<string, number> = {};
+    for (const t of tables) {
+      const row = await this.knex(t).count<{ count: string }[]>('* as count').first();
+      out[t] = Number(row?.count ?? 0);
+    }
+    return out;
+  }
+
+  async close(): Promise<void> {
+    await this.app.close();
+    await this.knex.destroy();
+    await this.mail?.close();
+    await this.dropDb();
+  }
+}
+
+/** The link of an e-mail's text that starts with `${PUBLIC_URL}${path}`. */
+export function linkIn(message: MailboxMessage, path: string): string {
+  const re = new RegExp(`${TEST_PUBLIC_URL.replace(/[.]/g, '\\.')}${path}[A-Za-z0-9_/-]+`);
+  const m = re.exec(message.text);
+  if (!m) throw new Error(`no ${path} link in the e-mail:\n${message.text}`);
+  return m[0];
+}
