@@ -68,10 +68,24 @@ export function addWarnings(sheet: SheetData, members: readonly ScheduleMember[]
   addInertiaOutliers(sheet, members, cols, problems);
 }
 
-function median(values: number[]): number {
-  const s = [...values].sort((a, b) => a - b);
-  const mid = s.length >> 1;
-  return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
+/** Index of the first element ≥ v in an ascending array. */
+function lowerBound(sorted: number[], v: number): number {
+  let lo = 0;
+  let hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (sorted[mid] < v) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/** Median of an ascending array with one occurrence of `self` left out. */
+function medianWithout(sorted: number[], self: number): number {
+  const skip = lowerBound(sorted, self);
+  const m = sorted.length - 1;
+  const at = (rank: number) => sorted[rank < skip ? rank : rank + 1];
+  return m % 2 ? at((m - 1) >> 1) : (at(m / 2 - 1) + at(m / 2)) / 2;
 }
 
 function addInertiaOutliers(sheet: SheetData, members: readonly ScheduleMember[], cols: Columns, problems: ProblemList): void {
@@ -88,20 +102,27 @@ function addInertiaOutliers(sheet: SheetData, members: readonly ScheduleMember[]
   for (const list of groups.values()) {
     if (list.length <= I_MIN_PEERS) continue;
     list.sort((a, b) => a.g - b.g);
+    // The window of similar spans only moves right, so keep its values sorted as it slides.
+    const window: number[] = [];
     let lo = 0;
-    let hi = 0;
+    let hi = -1;
     for (let i = 0; i < list.length; i++) {
       const { m, g, k } = list[i];
-      while (list[lo].g < g / I_PEER_LENGTH_RATIO) lo++;
-      while (hi + 1 < list.length && list[hi + 1].g <= g * I_PEER_LENGTH_RATIO) hi++;
-      const peers: number[] = [];
-      for (let j = lo; j <= hi; j++) if (j !== i) peers.push(list[j].k);
-      if (peers.length < I_MIN_PEERS) continue;
-      const med = median(peers);
+      while (hi + 1 < list.length && list[hi + 1].g <= g * I_PEER_LENGTH_RATIO) {
+        hi++;
+        window.splice(lowerBound(window, list[hi].k), 0, list[hi].k);
+      }
+      while (list[lo].g < g / I_PEER_LENGTH_RATIO) {
+        window.splice(lowerBound(window, list[lo].k), 1);
+        lo++;
+      }
+      const peers = window.length - 1;
+      if (peers < I_MIN_PEERS) continue;
+      const med = medianWithout(window, k);
       const factor = k > med ? k / med : med / k;
       if (factor <= I_OUTLIER_FACTOR) continue;
       const unit = cols.I?.unit;
-      const similar = `${peers.length} other ${m.category} ${m.material} members of similar span (${shown(list[lo].g, cols.spans?.unit)} to ${shown(list[hi].g, cols.spans?.unit)})`;
+      const similar = `${peers} other ${m.category} ${m.material} members of similar span (${shown(list[lo].g, cols.spans?.unit)} to ${shown(list[hi].g, cols.spans?.unit)})`;
       const expected =
         m.depth === null
           ? `than the median I (${shown(med, unit)}) of ${similar}`

@@ -125,9 +125,17 @@ for (const unit of UNITS) {
   }
 }
 
+// Imports look up the same few header spellings for every cell; remember them.
+const SEEN = new Map<string, UnitDef | null>();
+
 /** The unit a spelling means, or undefined when we do not know it. */
 export function findUnit(text: string): UnitDef | undefined {
-  return BY_KEY.get(unitKey(text));
+  let def = SEEN.get(text);
+  if (def === undefined) {
+    def = BY_KEY.get(unitKey(text)) ?? null;
+    if (SEEN.size < 10_000) SEEN.set(text, def);
+  }
+  return def ?? undefined;
 }
 
 /** Every accepted spelling (for tests and help pages). */
