@@ -27,7 +27,7 @@ async function checkWorkbook(bytes: Buffer, unitSystem: UnitSystemId): Promise<P
     members: sheetData(members),
     ...(loadsName ? { loads: sheetData(wb.getWorksheet(loadsName)!) } : {}),
     unitSystem,
-    categories: DEMO_CATEGORIES,
+    categories: CATEGORIES,
     levels: LEVELS,
   });
 }
@@ -45,19 +45,64 @@ function report(file: string, result: ParseScheduleResult, schedule?: SampleSche
 
 async function writeExample(file: string, unitSystem: UnitSystemId, schedule: SampleSchedule, title: string): Promise<void> {
   const wb = new ExcelJS.Workbook();
-  writeScheduleWorkbook(wb, { unitSystem, categories: DEMO_CATEGORIES, members: schedule.members, loads: schedule.loads, title });
+  writeScheduleWorkbook(wb, { unitSystem, categories: CATEGORIES, categoryLabels: LABELS, members: schedule.members, loads: schedule.loads, title });
   const bytes = await workbookBytes(wb);
   writeFileSync(join(OUT, file), bytes);
   report(file, await checkWorkbook(bytes, unitSystem), schedule);
 }
 
+interface Presets {
+  ids: string[];
+  labels: Record<string, string>;
+}
+
+/**
+ * The demo's categories must be ids of the limit-set presets. common/src/limits
+ * is loaded when present (it is written in parallel with this script); the
+ * template then offers every preset category, with its label.
+ */
+async function loadPresets(): Promise<Presets | null> {
+  let limits: Record<string, unknown>;
+  try {
+    // A computed path: the module may not exist yet, and type checking must not need it.
+    limits = require(join(__dirname, '../../common/src/limits')) as Record<string, unknown>;
+  } catch {
+    console.log('common/src/limits not found: category ids not checked against the presets');
+    return null;
+  }
+  const list = limits.MEMBER_CATEGORIES;
+  if (!Array.isArray(list)) {
+    console.log('common/src/limits has no MEMBER_CATEGORIES array: category ids not checked');
+    return null;
+  }
+  const presets: Presets = { ids: [], labels: {} };
+  for (const c of list as unknown[]) {
+    const id = typeof c === 'string' ? c : String((c as { id?: unknown }).id);
+    presets.ids.push(id);
+    const label = typeof c === 'object' && c ? ((c as { label?: unknown; name?: unknown }).label ?? (c as { name?: unknown }).name) : undefined;
+    if (typeof label === 'string') presets.labels[id] = label;
+  }
+  const missing = DEMO_CATEGORIES.filter((c) => !presets.ids.includes(c));
+  if (missing.length) throw new Error(`demo categories not defined by the limit-set presets: ${missing.join(', ')} (presets: ${presets.ids.join(', ')})`);
+  console.log(`category ids match the limit-set presets (${presets.ids.length} presets)`);
+  return presets;
+}
+
+let CATEGORIES: readonly string[] = DEMO_CATEGORIES;
+let LABELS: Record<string, string> = {};
+
 async function main(): Promise<void> {
+  const presets = await loadPresets();
+  if (presets) {
+    CATEGORIES = presets.ids;
+    LABELS = presets.labels;
+  }
   const si = halvercoteYardSI();
   await writeExample('halvercote-yard.xlsx', 'SI', si, 'Halvercote Yard: member schedule, revision A (invented demo project, SI units)');
 
   const csv = membersCsv({ unitSystem: 'SI', members: si.members });
   writeFileSync(join(OUT, 'halvercote-yard-members.csv'), csv);
-  const csvResult = parseSchedule({ members: csvSheet(csv), unitSystem: 'SI', categories: DEMO_CATEGORIES, levels: LEVELS });
+  const csvResult = parseSchedule({ members: csvSheet(csv), unitSystem: 'SI', categories: CATEGORIES, levels: LEVELS });
   // The CSV has no Loads sheet, so the girders' point loads are missing: only errors matter here.
   report('halvercote-yard-members.csv', { ...csvResult, problems: csvResult.problems.filter((p) => p.severity === 'error') });
 
@@ -65,7 +110,7 @@ async function main(): Promise<void> {
   await writeExample('halvercote-yard-us.xlsx', 'US', us, 'Halvercote Yard annex: member schedule, revision A (invented demo project, US customary units)');
 
   const template = new ExcelJS.Workbook();
-  writeTemplate(template, { unitSystem: 'SI', categories: DEMO_CATEGORIES });
+  writeTemplate(template, { unitSystem: 'SI', categories: CATEGORIES, categoryLabels: LABELS });
   const templateBytes = await workbookBytes(template);
   writeFileSync(join(OUT, 'member-schedule-template.xlsx'), templateBytes);
   const t = await checkWorkbook(templateBytes, 'SI');

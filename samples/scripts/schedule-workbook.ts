@@ -37,6 +37,8 @@ export interface ScheduleWorkbookOptions {
   unitSystem: UnitSystemId;
   /** Limit-set category ids offered in the Category drop-down. */
   categories: readonly string[];
+  /** What each category means, for the Codes sheet (e.g. from the limit-set presets). */
+  categoryLabels?: Readonly<Record<string, string>>;
   /** Load cases that get a Members column (default D, L, Lr, S, W). */
   loadCases?: readonly string[];
   /** Rows below the header that get drop-down lists (default 1000, or the data rows + 200). */
@@ -94,10 +96,10 @@ function writeHeader(sheet: ExcelJS.Worksheet, layout: LaidOutColumn[]): void {
 }
 
 /** Codes sheet: one two-column table per coded column; returns each list's range for validations. */
-function writeCodes(workbook: ExcelJS.Workbook, categories: readonly string[]): Map<string, string> {
+function writeCodes(workbook: ExcelJS.Workbook, opts: ScheduleWorkbookOptions): Map<string, string> {
   const sheet = workbook.addWorksheet(SHEET_NAMES.codes);
   const ranges = new Map<string, string>();
-  codeTables(categories).forEach((table, t) => {
+  codeTables(opts.categories, opts.categoryLabels).forEach((table, t) => {
     const col = t * 3 + 1;
     sheet.getColumn(col).width = 26;
     sheet.getColumn(col + 1).width = 48;
@@ -202,7 +204,7 @@ export function writeScheduleWorkbook(
   const members = workbook.addWorksheet(SHEET_NAMES.members);
   const loads = workbook.addWorksheet(SHEET_NAMES.loads);
   writeHelp(workbook, opts);
-  const ranges = writeCodes(workbook, opts.categories);
+  const ranges = writeCodes(workbook, opts);
 
   const mLayout = memberLayout(opts.unitSystem, opts.loadCases);
   writeHeader(members, mLayout);

@@ -55,6 +55,15 @@ describe('parseSchedule: members in SI', () => {
     expect(memberSupports(members[0]).supports).toEqual(expected.map(([kind, x]) => ({ kind, x })));
   });
 
+  it('places end fixity at the outer supports, not at the overhang tips', () => {
+    const { members } = parseSI([siRow({ Supports: 'pinned-fixed', 'Spans [m]': '5+4', 'Left overhang [m]': 1.5, 'Right overhang [m]': 1 })]);
+    expect(memberSupports(members[0])).toEqual({
+      length: 11.5,
+      supports: [{ x: 1.5, kind: 'pin' }, { x: 6.5, kind: 'pin' }, { x: 10.5, kind: 'fixed' }],
+    });
+    expect(memberLoads(members[0])[0]).toEqual({ case: 'D', kind: 'udl', x1: 0, x2: 11.5, w: 3500 });
+  });
+
   it('reads formulas by their cached result, rich text and hyperlinked e-mails', () => {
     const { members, problems } = parseSI([
       siRow({

@@ -79,9 +79,12 @@ export function columnHelpRows(system: UnitSystemId, categories: readonly string
 }
 
 /** The code tables (value, meaning) for a "Codes" sheet and for drop-down lists. */
-export function codeTables(categories: readonly string[]): { title: string; column: string; codes: { code: string; help: string }[] }[] {
+export function codeTables(
+  categories: readonly string[],
+  categoryLabels: Readonly<Record<string, string>> = {},
+): { title: string; column: string; codes: { code: string; help: string }[] }[] {
   return [
-    { title: 'Category', column: 'Category', codes: categories.map((c) => ({ code: c, help: 'limit-set category' })) },
+    { title: 'Category', column: 'Category', codes: categories.map((c) => ({ code: c, help: categoryLabels[c] ?? 'limit-set category' })) },
     { title: 'Material', column: 'Material', codes: MATERIALS.map((c) => ({ code: c.code, help: c.help })) },
     { title: 'Supports', column: 'Supports', codes: SUPPORT_CODES.map((c) => ({ code: c.code, help: c.help })) },
     { title: 'Load case', column: 'Case', codes: LOAD_CASES.map((c) => ({ code: c.code, help: c.help })) },
