@@ -1,5 +1,6 @@
 import { Catch, Logger, type ArgumentsHost, type ExceptionFilter } from '@nestjs/common';
 import type { Request, Response } from 'express';
+import { ApiError } from './api-error';
 import { toErrorBody } from './error-body';
 import { requestIdOf } from './request-id.middleware';
 
@@ -21,7 +22,8 @@ export function sendError(exception: unknown, req: Request, res: Response, logge
   const requestId = requestIdOf(req);
   const { status, body, unexpected } = toErrorBody(exception, requestId);
   if (unexpected) {
-    const stack = exception instanceof Error ? exception.stack : String(exception);
+    // Our own 5xx answers (database down, mailbox not running) carry their reason; anything else its stack.
+    const stack = exception instanceof ApiError ? exception.message : exception instanceof Error ? exception.stack : String(exception);
     logger.error(`${req.method} ${req.originalUrl} failed (request id ${requestId}): ${stack}`);
   }
   if (res.headersSent) {

@@ -22,9 +22,11 @@ export class MailboxController {
       if (!res.ok) throw new Error(`HTTP ${res.status}`);
       return (await res.json()) as MailboxMessage[];
     } catch (e) {
+      const inner = (e as { cause?: { code?: string; message?: string } }).cause;
+      const cause = inner?.code ?? inner?.message ?? (e instanceof Error ? e.message : String(e));
       throw new ApiError(
         'INTERNAL',
-        `The local mailbox at ${base} is not answering (${e instanceof Error ? e.message : String(e)}); \`npm start\` runs it, or start it with \`node api/dist/mail/fake-smtp.js\`.`,
+        `The local mailbox at ${base} is not answering (${cause}); \`npm start\` runs it, or start it with \`node api/dist/mail/fake-smtp.js\`.`,
         undefined,
         502,
       );

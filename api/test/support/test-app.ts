@@ -41,8 +41,8 @@ export class TestApp {
       DATABASE_URL: db.url,
       PUBLIC_URL: TEST_PUBLIC_URL,
       // A closed port when there is no fake: connection refused at once.
-      SMTP_URL: mail?.smtpUrl ?? 'smtp://127.0.0.1:9',
-      MAILBOX_URL: mail?.mailboxUrl ?? 'http://127.0.0.1:9',
+      SMTP_URL: mail?.smtpUrl ?? 'smtp://127.0.0.1:39',
+      MAILBOX_URL: mail?.mailboxUrl ?? 'http://127.0.0.1:39',
       SIGN_IN_RATE_LIMIT: '1000/15m',
       MAIL_RETRY_SECONDS: '0',
       WEB_DIST: '/nonexistent-web-dist',
