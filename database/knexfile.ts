@@ -46,6 +46,14 @@ export function knexConfig(url: string, pool: Knex.PoolConfig = { min: 0, max: 1
     client: 'pg',
     connection: url,
     pool,
+    log: {
+      // A failed connection is thrown to the caller (and logged there with its request id);
+      // knex would also print it, stack and all, on every attempt.
+      warn: (message: unknown) => {
+        if (typeof message === 'string' && message.startsWith('Acquire connection error')) return;
+        console.warn(message);
+      },
+    },
     migrations: {
       migrationSource: new FolderMigrationSource(),
       tableName: 'knex_migrations',

@@ -136,3 +136,38 @@ describe('serving the built web app', () => {
     expectError(await c.get('/api/unknown'), 404, 'NOT_FOUND');
   });
 });
+
+describe('our own failures', () => {
+  it('answer 500 INTERNAL with a request id to quote, never a stack or SQL', async () => {
+    const t = await TestApp.start({ quiet: true });
+    try {
+      const make = new Factories(t.knex);
+      const user = await make.user();
+      const project = await make.project({ team: [[user, 'viewer']] });
+      const c = await ApiClient.signedIn(t.http, user.email, PASSWORD);
+      // Break the schema under the running api.
+      await t.knex.raw('alter table activity rename to activity_gone');
+      const res = await c.get(`/api/projects/${project.id}/activity`);
+      const body = expectError(res, 500, 'INTERNAL', /^Something went wrong on our side\. It was logged with request id [0-9a-f-]{36}; please try again\.$/);
+      expect(body.message).toContain(res.headers['x-request-id']);
+      expect(JSON.stringify(body)).not.toMatch(/activity|relation|select/i);
+    } finally {
+      await t.close();
+    }
+  });
+
+  it('health answers 503 when the database is unreachable', async () => {
+    const t = await TestApp.start();
+    try {
+      const { createApp } = await import('../src/app.factory');
+      const broken = await createApp({ ...t.config, databaseUrl: `${process.env.SAGLINE_TEST_SERVER}/no_such_database` }, { logger: false });
+      try {
+        expectError(await new ApiClient(broken.getHttpServer()).get('/api/health'), 503, 'INTERNAL', 'The database is not answering.');
+      } finally {
+        await broken.close();
+      }
+    } finally {
+      await t.close();
+    }
+  });
+});

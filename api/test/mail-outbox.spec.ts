@@ -24,7 +24,7 @@ describe('the mail outbox', () => {
   beforeAll(async () => {
     smtpPort = await freePort();
     // SMTP_URL points at a port where nothing listens yet: the server is "down".
-    t = await TestApp.start({ withoutSmtp: true, env: { SMTP_URL: `smtp://127.0.0.1:${smtpPort}` } });
+    t = await TestApp.start({ withoutSmtp: true, quiet: true, env: { SMTP_URL: `smtp://127.0.0.1:${smtpPort}` } });
   });
   afterAll(async () => {
     await t.close();
@@ -90,7 +90,7 @@ describe('the development mailbox route', () => {
   });
 
   it('says clearly when the mailbox is not running', async () => {
-    const t = await TestApp.start({ withoutSmtp: true });
+    const t = await TestApp.start({ withoutSmtp: true, quiet: true });
     try {
       expectError(await new ApiClient(t.http).get('/api/dev/mailbox'), 502, 'INTERNAL', /The local mailbox at http:\/\/127\.0\.0\.1:39 is not answering \(ECONNREFUSED\)/);
     } finally {

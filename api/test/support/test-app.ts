@@ -15,6 +15,8 @@ export interface TestAppOptions {
   env?: Record<string, string>;
   /** Start without the fake SMTP server (mail then fails and stays queued). */
   withoutSmtp?: boolean;
+  /** No server log: for tests that provoke a 5xx on purpose (the log would only be noise). */
+  quiet?: boolean;
 }
 
 /**
@@ -31,6 +33,7 @@ export class TestApp {
     readonly knex: Knex,
     readonly mail: FakeSmtp | null,
     private readonly dropDb: () => Promise<void>,
+    private readonly quiet: boolean,
   ) {}
 
   static async start(options: TestAppOptions = {}): Promise<TestApp> {
@@ -48,13 +51,13 @@ export class TestApp {
       WEB_DIST: '/nonexistent-web-dist',
       ...options.env,
     });
-    const t = new TestApp(config, createKnex(db.url, { min: 0, max: 3 }), mail, db.drop);
+    const t = new TestApp(config, createKnex(db.url, { min: 0, max: 3 }), mail, db.drop, options.quiet ?? false);
     await t.boot();
     return t;
   }
 
   private async boot(): Promise<void> {
-    this.app = await createApp(this.config, { logger: ['error'] });
+    this.app = await createApp(this.config, { logger: this.quiet ? false : ['error'] });
     this.http = this.app.getHttpServer();
   }
 
