@@ -9,7 +9,8 @@ import type { ApiErrorBody, ErrorCode } from '@sagline/common/api-types';
  */
 export function expectError(res: Response, status: number, code: ErrorCode, message?: string | RegExp): ApiErrorBody {
   const body = res.body as ApiErrorBody;
-  const context = `${res.req?.method} ${res.req?.path} → ${res.status} ${JSON.stringify(body)}`;
+  const req = (res as unknown as { req?: { method?: string; path?: string } }).req;
+  const context = `${req?.method} ${req?.path} → ${res.status} ${JSON.stringify(body)}`;
   expect({ status: res.status, code: body?.code, context }).toEqual({ status, code, context });
   expect(res.headers['content-type']).toMatch(/^application\/json/);
   const keys = Object.keys(body).sort();

@@ -8,7 +8,7 @@ import net from 'node:net';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { createKnex, migrateLatest } from '../../../database/index';
-import { adminUrl, dropDatabase, serverUrl } from './pg-admin';
+import { adminUrl, dropDatabase, dropStaleRunDatabases, serverUrl } from './pg-admin';
 
 interface Cluster {
   url: string;
@@ -56,6 +56,7 @@ export default async function globalSetup(): Promise<void> {
   }
 
   const template = `${runId}_template`;
+  await dropStaleRunDatabases(server);
   await dropDatabase(server, template);
   const admin = createKnex(adminUrl(server), { min: 0, max: 1 });
   try {

@@ -55,3 +55,26 @@ export async function createTestDatabase(options: { empty?: boolean } = {}): Pro
   }
   return { url: `${server}/${name}`, drop: () => dropDatabase(server, name) };
 }
+
+/** Drops databases left by earlier test runs whose process is gone (a crash, a Ctrl-C). */
+export async function dropStaleRunDatabases(server: string): Promise<void> {
+  const admin = createKnex(adminUrl(server), { min: 0, max: 1 });
+  try {
+    const { rows } = await admin.raw<{ rows: { datname: string }[] }>(`select datname from pg_database where datname like 'sagline_api_%'`);
+    for (const { datname } of rows) {
+      const pid = Number(/^sagline_api_(\d+)_/.exec(datname)?.[1]);
+      if (pid && !alive(pid)) await admin.raw(`drop database if exists "${datname}" with (force)`);
+    }
+  } finally {
+    await admin.destroy();
+  }
+}
+
+function alive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (e) {
+    return (e as NodeJS.ErrnoException).code === 'EPERM';
+  }
+}
