@@ -1,4 +1,4 @@
-import { Inject, Injectable, Logger, type OnApplicationShutdown, type OnModuleInit } from '@nestjs/common';
+import { Inject, Injectable, Logger, type BeforeApplicationShutdown, type OnModuleInit } from '@nestjs/common';
 import { APP_CONFIG } from '../config/config.tokens';
 import type { AppConfig } from '../config/app-config';
 import { TransactionRunner, type Trx } from '../db/transaction';
@@ -25,7 +25,7 @@ export interface FlushReport {
  * queued, retried with growing pauses (30 s, 1 min, 2 min ... at most 1 h).
  */
 @Injectable()
-export class OutboxService implements OnModuleInit, OnApplicationShutdown {
+export class OutboxService implements OnModuleInit, BeforeApplicationShutdown {
   private readonly logger = new Logger('outbox');
   private readonly inFlight = new Set<Promise<unknown>>();
   private timer: NodeJS.Timeout | null = null;
@@ -99,7 +99,8 @@ export class OutboxService implements OnModuleInit, OnApplicationShutdown {
     this.timer.unref();
   }
 
-  async onApplicationShutdown(): Promise<void> {
+  /** Before any shutdown hook closes the database: let deliveries under way finish. */
+  async beforeApplicationShutdown(): Promise<void> {
     if (this.timer) clearInterval(this.timer);
     await this.settle();
   }
