@@ -61,6 +61,7 @@ async function e2eTier(cluster) {
   };
   run('node', ['database/dist/src/cli.js', 'migrate'], { env: { ...process.env, ...env } });
   run('node', ['database/dist/src/cli.js', 'seed'], { env: { ...process.env, ...env } });
+  run('node', ['api/dist/cli.js', 'seed-demo'], { env: { ...process.env, ...env } });
   const smtp = startChild('mail', 'node', ['api/dist/mail/fake-smtp.js'], {
     SMTP_PORT: String(smtpPort), MAILBOX_PORT: String(mailboxPort),
   });
@@ -100,6 +101,7 @@ async function main() {
       try {
         if (tier === 'build') {
           build();
+          run('npx', ['tsc', '--noEmit', '-p', 'api/test/tsconfig.json']);
           run('npm', ['run', '-s', 'typecheck', '-w', '@sagline/web']);
           r = { passed: 1, failed: 0, skipped: 0 };
         } else if (tier === 'unit') r = jestTier('unit', 'common/jest.config.js');

@@ -52,6 +52,8 @@ async function main() {
   };
   run('node', ['database/dist/src/cli.js', 'migrate'], { env: { ...process.env, ...env } });
   run('node', ['database/dist/src/cli.js', 'seed'], { env: { ...process.env, ...env } });
+  // The demo members go in through the same import code as an upload.
+  run('node', ['api/dist/cli.js', 'seed-demo'], { env: { ...process.env, ...env } });
 
   if (!process.env.SMTP_URL) {
     const smtp = startChild('mail', 'node', ['api/dist/mail/fake-smtp.js'], {
