@@ -32,11 +32,13 @@ export interface EstimateMember {
   loads: EstimateLoad[];
 }
 
+/** A check as the engine takes it: allowed = min(l_eff / ratio + plus, maxAbs). */
 export interface EstimateCheck {
   name: string;
   combination: Record<string, number>;
   ratio: number;
-  maxAbs?: number;
+  maxAbs?: number | null;
+  plus?: number | null;
 }
 
 /** Line load intensity of a distributed load at x (0 outside it). */
@@ -132,8 +134,8 @@ export function estimateRequiredI(m: EstimateMember, checks: readonly EstimateCh
   let required = 0;
   for (const check of checks) {
     for (const seg of estimateSegments(m, check.combination)) {
-      let allowed = seg.effectiveLength / check.ratio;
-      if (check.maxAbs !== undefined) allowed = Math.min(allowed, check.maxAbs);
+      let allowed = seg.effectiveLength / check.ratio + (check.plus ?? 0);
+      if (check.maxAbs != null) allowed = Math.min(allowed, check.maxAbs);
       required = Math.max(required, Math.abs(seg.deflectionTimesI) / allowed);
     }
   }

@@ -13,10 +13,12 @@
  * that they fail. Section properties are approximate, from memory, for
  * demonstration only; the calculation uses the E and I columns.
  */
+import { checksFor, type MaterialId } from '../../common/src/limits';
 import { toSI, type UnitSystemId } from '../../common/src/units';
 import type { SupportCode } from '../../common/src/schedule';
 import { estimateDeflection, estimateRequiredI, type EstimateCheck, type EstimateLoad, type EstimateMember } from './deflection-estimate';
 import type { LoadRowInput, MemberRowInput } from './schedule-workbook';
+import { DEMO_LIMIT_SET } from './categories';
 import { SeededRandom } from './seeded-random';
 
 export const REVIEWERS = {
@@ -97,40 +99,16 @@ const I_JOISTS_US: Section[] = [
 ].map(([name, I, depth]) => ({ name: name as string, I: I as number, depth: depth as number }));
 
 /**
- * The checks the estimate sizes against, per category. They mirror the
- * limit-set presets (IBC 2021 Table 1604.3; TMS 402 L/600 and 0.3 in; ACI
- * 318-19 Table 24.2.2; IBC §2403.3 glazing) as far as a sizing estimate needs.
+ * The checks the estimate sizes against: the demo limit set's rules for the
+ * member's category and material (common/src/limits checksFor: IBC 2021
+ * Table 1604.3 with L + 0.5D for wood and D dropped for steel, TMS 402 for
+ * masonry, IBC §1604.3.7 for glass framing, ACI 318-19 Table 24.2.2).
  */
-function checksFor(category: string): EstimateCheck[] {
-  const live = (ratio: number): EstimateCheck[] => [
-    { name: 'L', combination: { L: 1 }, ratio },
-    { name: 'Lr', combination: { Lr: 1 }, ratio },
-    { name: 'S', combination: { S: 1 }, ratio },
-  ];
-  const total = (ratio: number, maxAbs?: number): EstimateCheck[] => [
-    { name: 'D+L', combination: { D: 1, L: 1 }, ratio, maxAbs },
-    { name: 'D+Lr', combination: { D: 1, Lr: 1 }, ratio, maxAbs },
-    { name: 'D+S', combination: { D: 1, S: 1 }, ratio, maxAbs },
-  ];
-  switch (category) {
-    case 'floor':
-    case 'roof-plaster-ceiling':
-      return [...live(360), ...total(240)];
-    case 'roof-other-ceiling':
-      return [...live(240), ...total(180)];
-    case 'roof-no-ceiling':
-      return [...live(180), ...total(120)];
-    case 'supports-masonry':
-      return total(600, 0.00762);
-    case 'concrete-damage-prone':
-      return [...live(360), ...total(480)];
-    case 'concrete-not-damage-prone':
-      return [...live(360), ...total(240)];
-    case 'glazing-support':
-      return [{ name: '0.6W', combination: { W: 0.6 }, ratio: 175, maxAbs: 0.0191 }];
-    default:
-      throw new Error(`no estimate checks for category ${category}`);
-  }
+function checksOf(d: DraftMember, est: EstimateMember): EstimateCheck[] {
+  const cases = [...new Set(est.loads.map((l) => l.case))];
+  const length = est.leftOverhang + est.spans.reduce((a, b) => a + b, 0) + est.rightOverhang;
+  const { combinations, checks } = checksFor(DEMO_LIMIT_SET, d.category, d.material as MaterialId, { cases, length });
+  return checks.map((c) => ({ name: c.name, combination: combinations[c.combination], ratio: c.ratio, maxAbs: c.maxAbs, plus: c.plus }));
 }
 
 /** A Loads sheet row in the workbook's units. */
@@ -219,36 +197,19 @@ function isSimpleSpan(d: DraftMember): boolean {
 
 /**
  * Picks sections, fills the rows, and keeps the estimate's expected failures.
- * A failing member is chosen only among simple spans. Where it can, it fails
- * a single-case check (L, Lr, S or 0.6W alone) by 5 to 60 % and no check by
- * more than 100 %, so it fails whichever total combination the limit set uses
- * (D + L, L + 0.5D, or none for steel); where the dead load is too large for
- * that, half fail the single-case check anyway (and D + L by far more) and
- * half fail only D + L, by 5 to 60 %.
+ * A failing member is chosen only among simple spans (where the estimate is
+ * close to exact), and its governing check fails by 5 to 60 %.
  */
 function finish(drafts: DraftMember[], u: Units, rng: SeededRandom, failShare: number, forceFail: ReadonlySet<string>): SampleSchedule {
   const out: SampleSchedule = { members: [], loads: [], expectedFailures: [] };
   for (const d of drafts) {
     const est = toEstimate(d, u);
-    const checks = checksFor(d.category);
-    const single = checks.filter((c) => !('D' in c.combination));
-    const perUnit = toSI(1, u.inertia);
-    const req = estimateRequiredI(est, checks) / perUnit;
-    const reqSingle = estimateRequiredI(est, single.length ? single : checks) / perUnit;
+    const checks = checksOf(d, est);
+    const req = estimateRequiredI(est, checks) / toSI(1, u.inertia);
     const sections = d.sections;
     const fail = forceFail.has(d.mark) || (isSimpleSpan(d) && rng.chance(failShare));
     let section: Section | undefined;
-    if (fail) {
-      // Fails a single-case check by 5–60 % and no check by more than 100 %: a plausible slip, not a blunder.
-      // Where the dead load is so large that this is impossible, fail either the single-case check
-      // anyway (half of them: the D + L check then fails by far more) or the total check by 5–60 %.
-      const down = [...sections].reverse();
-      const singleFails = (s: Section) => s.I <= reqSingle / 1.05 && s.I >= reqSingle / 1.6;
-      section =
-        down.find((s) => singleFails(s) && s.I >= req / 2) ??
-        (rng.chance(0.5) ? down.find(singleFails) : undefined) ??
-        down.find((s) => s.I <= req / 1.05 && s.I >= req / 1.6);
-    }
+    if (fail) section = [...sections].reverse().find((s) => s.I <= req / 1.05 && s.I >= req / 1.6);
     if (!section) {
       const ok = sections.findIndex((s) => s.I >= req / 0.92);
       const index = ok < 0 ? sections.length - 1 : Math.min(sections.length - 1, ok + (rng.chance(0.25) ? 1 : 0));
@@ -439,11 +400,11 @@ export function halvercoteYardSI(seed = 20250106): SampleSchedule {
         });
       });
       // Shopfront wind posts of the double-height retail glazing, 6.0 m floor to L2 edge beam,
-      // 1.5 m apart, 1.6 kPa components-and-cladding pressure.
+      // 3.0 m apart, 1.6 kPa components-and-cladding pressure.
       for (let i = 1; i <= 6; i++) {
         drafts.push({
-          mark: `L1-WP${pad(i)}`, level, grid: `1/A+${(1.5 * i).toFixed(1)}`, category: 'glazing-support', material: 'steel', sections: HSS_METRIC,
-          supports: 'pinned', spans: [6.0], E: 200, uniform: { W: 2.4 }, reviewer,
+          mark: `L1-WP${pad(i)}`, level, grid: `1/A+${(3.0 * i).toFixed(1)}`, category: 'supports-glass', material: 'steel', sections: HSS_METRIC,
+          supports: 'pinned', spans: [6.0], E: 200, uniform: { W: 4.8 }, reviewer,
           notes: 'vertical wind post of the shopfront glazing; W acts horizontally',
         });
       }
@@ -469,7 +430,7 @@ export function halvercoteYardSI(seed = 20250106): SampleSchedule {
     for (let xi = 0; xi < 4; xi++) {
       const plant = xi === 2 && yi >= 1;
       const corridor = xi === 1 && yi === 1;
-      const category = plant ? 'roof-no-ceiling' : corridor ? 'roof-other-ceiling' : 'roof-plaster-ceiling';
+      const category = plant ? 'roof-no-ceiling' : corridor ? 'roof-nonplaster-ceiling' : 'roof-plaster-ceiling';
       const Dk = plant ? 1.85 : 0.85;
       for (let z = 1; z <= 7; z++) {
         const grid = `${X[xi]}-${X[xi + 1]}/${Y[yi]}-${Y[yi + 1]} zone ${z}`;

@@ -2,16 +2,16 @@ import type { CellValue, SheetData } from '../cells';
 import { parseSchedule } from '../parse-schedule';
 import type { ParseScheduleInput, ScheduleProblem } from '../types';
 
-/** The category ids of the limit-set presets (see common/src/limits). */
+/** Some category ids of the limit-set presets (common/src/limits MEMBER_CATEGORIES). */
 export const CATEGORIES = [
   'floor',
   'roof-plaster-ceiling',
-  'roof-other-ceiling',
+  'roof-nonplaster-ceiling',
   'roof-no-ceiling',
   'supports-masonry',
+  'supports-glass',
   'concrete-damage-prone',
   'concrete-not-damage-prone',
-  'glazing-support',
 ];
 
 export const SI_HEADER = [
