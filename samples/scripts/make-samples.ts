@@ -10,7 +10,8 @@ import { join } from 'node:path';
 import ExcelJS from 'exceljs';
 import { csvSheet, findSheet, parseSchedule, type ParseScheduleResult } from '../../common/src/schedule';
 import type { UnitSystemId } from '../../common/src/units';
-import { DEMO_CATEGORIES } from './categories';
+import { findCategory } from '../../common/src/limits';
+import { DEMO_CATEGORIES, DEMO_LIMIT_SET } from './categories';
 import { halvercoteYardSI, halvercoteYardUS, LEVELS, type SampleSchedule } from './halvercote-yard';
 import { sheetData } from './read-workbook';
 import { membersCsv, workbookBytes, writeScheduleWorkbook, writeTemplate } from './schedule-workbook';
@@ -51,52 +52,15 @@ async function writeExample(file: string, unitSystem: UnitSystemId, schedule: Sa
   report(file, await checkWorkbook(bytes, unitSystem), schedule);
 }
 
-interface Presets {
-  ids: string[];
-  labels: Record<string, string>;
-}
-
-/**
- * The demo's categories must be ids of the limit-set presets. common/src/limits
- * is loaded when present (it is written in parallel with this script); the
- * template then offers every preset category, with its label.
- */
-async function loadPresets(): Promise<Presets | null> {
-  let limits: Record<string, unknown>;
-  try {
-    // A computed path: the module may not exist yet, and type checking must not need it.
-    limits = require(join(__dirname, '../../common/src/limits')) as Record<string, unknown>;
-  } catch {
-    console.log('common/src/limits not found: category ids not checked against the presets');
-    return null;
-  }
-  const list = limits.MEMBER_CATEGORIES;
-  if (!Array.isArray(list)) {
-    console.log('common/src/limits has no MEMBER_CATEGORIES array: category ids not checked');
-    return null;
-  }
-  const presets: Presets = { ids: [], labels: {} };
-  for (const c of list as unknown[]) {
-    const id = typeof c === 'string' ? c : String((c as { id?: unknown }).id);
-    presets.ids.push(id);
-    const label = typeof c === 'object' && c ? ((c as { label?: unknown; name?: unknown }).label ?? (c as { name?: unknown }).name) : undefined;
-    if (typeof label === 'string') presets.labels[id] = label;
-  }
-  const missing = DEMO_CATEGORIES.filter((c) => !presets.ids.includes(c));
-  if (missing.length) throw new Error(`demo categories not defined by the limit-set presets: ${missing.join(', ')} (presets: ${presets.ids.join(', ')})`);
-  console.log(`category ids match the limit-set presets (${presets.ids.length} presets)`);
-  return presets;
-}
-
-let CATEGORIES: readonly string[] = DEMO_CATEGORIES;
-let LABELS: Record<string, string> = {};
+/** The template offers every category of the demo limit set, with its label on the Codes sheet. */
+const CATEGORIES: readonly string[] = DEMO_LIMIT_SET.categories;
+const LABELS: Record<string, string> = Object.fromEntries(
+  DEMO_LIMIT_SET.categories.map((id) => [id, findCategory(id)?.label ?? 'limit-set category']),
+);
 
 async function main(): Promise<void> {
-  const presets = await loadPresets();
-  if (presets) {
-    CATEGORIES = presets.ids;
-    LABELS = presets.labels;
-  }
+  const unknown = DEMO_CATEGORIES.filter((c) => !CATEGORIES.includes(c));
+  if (unknown.length) throw new Error(`demo categories not in the limit set "${DEMO_LIMIT_SET.name}": ${unknown.join(', ')}`);
   const si = halvercoteYardSI();
   await writeExample('halvercote-yard.xlsx', 'SI', si, 'Halvercote Yard: member schedule, revision A (invented demo project, SI units)');
 
