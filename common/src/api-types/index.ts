@@ -2,3 +2,4 @@ export * from './errors';
 export * from './constraints';
 export * from './auth';
 export * from './projects';
+export * from './imports';
