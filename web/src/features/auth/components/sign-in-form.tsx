@@ -1,0 +1,76 @@
+import { useState } from 'react';
+import { Alert, Button, Form, Input } from 'antd';
+import { LIMITS, type SignInRequest } from '@sagline/common/api-types';
+import { errorMessage, isApiError } from '@/app/api-error';
+import { minutesText } from '@/lib/format';
+import { useSignIn } from '../api/sign-in';
+
+/** What to tell a person whose sign-in was refused. */
+export function signInProblem(error: unknown): string {
+  if (isApiError(error) && error.code === 'RATE_LIMITED') {
+    return error.retryAfterSeconds !== undefined
+      ? `Too many sign-in attempts. Try again in ${minutesText(error.retryAfterSeconds)}.`
+      : error.message;
+  }
+  return errorMessage(error);
+}
+
+export function SignInForm({ initialEmail, onSignedIn }: { initialEmail?: string; onSignedIn: () => void }) {
+  const [form] = Form.useForm<SignInRequest>();
+  const { trigger, isMutating } = useSignIn();
+  const [problem, setProblem] = useState<string | null>(null);
+
+  const submit = async (values: SignInRequest) => {
+    setProblem(null);
+    try {
+      await trigger({ email: values.email.trim(), password: values.password });
+      onSignedIn();
+    } catch (e) {
+      setProblem(signInProblem(e));
+    }
+  };
+
+  return (
+    <Form
+      form={form}
+      layout="vertical"
+      requiredMark={false}
+      initialValues={{ email: initialEmail ?? '', password: '' }}
+      onFinish={submit}
+      onValuesChange={() => problem && setProblem(null)}
+      disabled={isMutating}
+    >
+      <Form.Item
+        label="E-mail"
+        name="email"
+        rules={[
+          { required: true, message: 'Enter your e-mail address.' },
+          { type: 'email', message: 'This is not an e-mail address (name@example.com).' },
+          { max: LIMITS.emailMax, message: `An e-mail address has at most ${LIMITS.emailMax} characters.` },
+        ]}
+      >
+        <Input autoComplete="username" autoFocus={!initialEmail} inputMode="email" />
+      </Form.Item>
+      <Form.Item
+        label="Password"
+        name="password"
+        rules={[
+          { required: true, message: 'Enter your password.' },
+          { max: LIMITS.passwordMax, message: `A password has at most ${LIMITS.passwordMax} characters.` },
+        ]}
+      >
+        <Input.Password autoComplete="current-password" autoFocus={!!initialEmail} />
+      </Form.Item>
+      {problem && (
+        <Form.Item>
+          <Alert type="error" showIcon title={problem} />
+        </Form.Item>
+      )}
+      <Form.Item style={{ marginBottom: 0 }}>
+        <Button type="primary" htmlType="submit" block loading={isMutating}>
+          Sign in
+        </Button>
+      </Form.Item>
+    </Form>
+  );
+}
