@@ -14,6 +14,8 @@ module.exports = {
   moduleNameMapper: {
     '^@sagline/common/(.*)$': '<rootDir>/../common/src/$1',
     '^@/(.*)$': '<rootDir>/src/$1',
+    // @ant-design/icons' CommonJS build requires one ESM file of the colours package.
+    '^@ant-design/colors/es/(.*)$': '@ant-design/colors/lib/$1',
     '\\.css$': 'identity-obj-proxy',
     '\\.(woff2?|ttf|svg|png|jpe?g)$': '<rootDir>/src/testing/file-stub.cjs',
   },

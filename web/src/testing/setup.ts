@@ -3,6 +3,11 @@
  * (toolchain.md, "Web tests with antd in jsdom").
  */
 import '@testing-library/jest-dom';
+import { configure } from '@testing-library/react';
+
+// The first render of a file loads its lazy route modules (and antd) cold:
+// on a shared two-core machine that can take a few seconds.
+configure({ asyncUtilTimeout: 5000 });
 
 // antd's responsive grid and breakpoints. false: narrow-screen-only columns stay hidden.
 Object.defineProperty(window, 'matchMedia', {
