@@ -1,33 +1,50 @@
 import * as bandedModule from './banded-ldl';
 import * as hermiteModule from './hermite';
-import { assertStable } from './stability';
+import { MIN_SUPPORT_GAP, assertStable, assertSupportsApart } from './stability';
 import type { BeamInput, Load } from './types';
 // Imported functions are bound once here: under tsx (esbuild's CommonJS interop) every call
 // through an import binding runs an accessor, which also blocks inlining on the hot path.
 const { factorBand, solveBandMany } = bandedModule;
-const { addConsistentLoad, addElementStiffness } = hermiteModule;
+const { addElementStiffness, consistentLine, consistentMoment, consistentPoint } = hermiteModule;
 
 /**
  * Direct-stiffness solution of one member, load by load (domain.md §4,
  * "Direct stiffness method with Hermite beam elements"):
- * - nodes at the member ends, the supports, every point load and moment, and
- *   both ends of every distributed load, so each element carries at most one
- *   linearly varying line load per load over its whole length, whose exact
- *   fixed-end actions are the consistent nodal loads;
+ * - nodes at the supports only; each span between two supports is one Hermite
+ *   element, and every load acts inside its element at its exact position,
+ *   through its exact fixed-end actions (hermite.ts). Nodes at load points
+ *   would create arbitrarily short elements whose stiffness (∝ 1/le³) ruins
+ *   the precision of the solve (a load 0.1 % of the length from a cantilever
+ *   tip lost seven digits); placing loads inside elements avoids that;
+ * - an overhang (or a cantilever) adds no stiffness: its loads reach its
+ *   support as a statically equivalent force and couple, and it deflects as a
+ *   cantilever off its support plus the support's rotation;
  * - the stiffness is assembled and factored once; every load's response is
- *   its own back-substitution (all loads side by side, see solveBandMany),
- *   so superposition is exact and each load's share stays visible;
- * - inside an element the exact deflection is the Hermite interpolation of
- *   its nodal values plus the clamped–clamped particular solution of its load
- *   (hermite.ts), a polynomial of degree ≤ 5.
+ *   its own back-substitution (all loads side by side, solveBandMany), so
+ *   superposition is exact and each load's share stays visible;
+ * - inside a segment the deflection is the Hermite interpolation of the
+ *   nodal values (a rigid rotation on an overhang) plus the clamped particular
+ *   solution of each load part: y_p = (M0·t²/2 + V0·t³/6 + Macaulay terms)/EI,
+ *   with M0, V0 the internal moment and shear at the clamped end (from the
+ *   fixed-end actions on a span, from statics on an overhang). Between load
+ *   points this is a polynomial of degree ≤ 5.
  *
- * The buffers are reused from member to member (the engine is synchronous and
+ * Segments are numbered left to right. Local coordinate t runs from the
+ * segment's origin: the left support of a span, the support of an overhang,
+ * towards the right (dir = +1) or, on a left overhang, towards the left
+ * (dir = −1; loads are mirrored into it, couples change sign).
+ *
+ * Buffers are reused from member to member (the engine is synchronous and
  * single-threaded), so solving many members allocates almost nothing.
  */
 
-const KIND_POINT = 0;
-const KIND_MOMENT = 1;
-const KIND_LINE = 2;
+export const SEG_SPAN = 0;
+export const SEG_RIGHT = 1;
+export const SEG_LEFT = 2;
+
+export const PART_POINT = 0;
+export const PART_MOMENT = 1;
+export const PART_LINE = 2;
 
 type F64 = Float64Array<ArrayBuffer>;
 type I32 = Int32Array<ArrayBuffer>;
@@ -39,73 +56,78 @@ function growInt(a: I32, n: number): I32 {
   return a.length >= n ? a : new Int32Array(Math.max(n, a.length * 2));
 }
 
-/** Index of `x` in the sorted array `xs[0..n)`; the value must be present. */
-function findNode(xs: F64, n: number, x: number): number {
-  let lo = 0;
-  let hi = n - 1;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (xs[mid] < x) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
-
 /** Intensity (N/m) at x of a line load w1 at x1 → w2 at x2; exact at both ends. */
 function lineIntensity(x: number, x1: number, x2: number, w1: number, w2: number): number {
   if (x === x1) return w1;
   if (x === x2) return w2;
+  if (w1 === w2) return w1;
   return (w1 * (x2 - x) + w2 * (x - x1)) / (x2 - x1);
 }
 
+const fe = new Float64Array(4);
+
 export class BeamSolution {
-  nNodes = 0;
-  /** DOF count: 2 per node, v then θ. */
-  nDof = 0;
-  nLoads = 0;
   length = 0;
   EI = 0;
   invEI = 0;
-  /** Node positions, m, ascending, distinct. */
-  nodeX: F64 = new Float64Array(64);
-  /** Per node: 0 free, 1 pin, 2 fixed. */
-  nodeSupport: I32 = new Int32Array(64);
-  /** Node indices of the distinct support positions, ascending. */
-  supportNodes: I32 = new Int32Array(16);
-  nSupports = 0;
-  /** Factored stiffness per unit EI (restrained DOFs replaced by identity rows). */
-  band: F64 = new Float64Array(256);
-  /** Unrestrained stiffness per unit EI, kept for the reactions. */
-  bandFull: F64 = new Float64Array(256);
+  nLoads = 0;
+  /** Distinct support positions (m, ascending) and kinds (1 pin, 2 fixed). */
+  nNodes = 0;
+  nodeX: F64 = new Float64Array(16);
+  nodeKind: I32 = new Int32Array(16);
+  nDof = 0;
+  /** Segments, left to right: kind, node (left node of a span, the support of an overhang), origin, direction, length, global ends. */
+  nSeg = 0;
+  segKind: I32 = new Int32Array(16);
+  segNode: I32 = new Int32Array(16);
+  segX0: F64 = new Float64Array(16);
+  segDir: F64 = new Float64Array(16);
+  segLen: F64 = new Float64Array(16);
+  segFrom: F64 = new Float64Array(16);
+  segTo: F64 = new Float64Array(16);
+  /**
+   * Load parts (one load on one segment), grouped by load: load k owns parts
+   * partStart[k]..partStart[k+1]. Local positions t1 ≤ t2 (equal for point
+   * loads and couples), values v1 (P, M or intensity at t1) and v2
+   * (intensity at t2), and the clamped-end moment M0 (N·m) and shear V0 (N).
+   */
+  nParts = 0;
+  partStart: I32 = new Int32Array(32);
+  partSeg: I32 = new Int32Array(64);
+  partLoad: I32 = new Int32Array(64);
+  partKind: I32 = new Int32Array(64);
+  partT1: F64 = new Float64Array(64);
+  partT2: F64 = new Float64Array(64);
+  partV1: F64 = new Float64Array(64);
+  partV2: F64 = new Float64Array(64);
+  partM0: F64 = new Float64Array(64);
+  partV0: F64 = new Float64Array(64);
+  /**
+   * Events for the sweep along each segment, sorted by (segment, position):
+   * part index, position t, and whether it opens (0) or closes (1) a line
+   * load (point loads and couples only open). Segment g owns
+   * events eventStart[g]..eventStart[g+1].
+   */
+  nEvents = 0;
+  eventStart: I32 = new Int32Array(16);
+  eventPart: I32 = new Int32Array(128);
+  eventClose: I32 = new Int32Array(128);
+  eventT: F64 = new Float64Array(128);
+  /** Factored stiffness per unit EI (restrained DOFs replaced by identity rows), and the unrestrained one for reactions. */
+  band: F64 = new Float64Array(64);
+  bandFull: F64 = new Float64Array(64);
   /** Nodal response per load, interleaved: DOF i (v = 2j, θ = 2j+1 of node j) of load k at [i·nLoads + k]; m and rad. */
-  u: F64 = new Float64Array(1024);
-  /**
-   * Reactions per load, interleaved: support s, component c (0: force, N, up;
-   * 1: moment, N·m, counter-clockwise, 0 at a pin) of load k at [(2s + c)·nLoads + k].
-   */
+  u: F64 = new Float64Array(256);
+  /** Reactions per load, interleaved: node j, component c (0 force N up, 1 moment N·m CCW) of load k at [(2j + c)·nLoads + k]. */
   reactions: F64 = new Float64Array(256);
-  /** Per load: kind code, case index, node(s), positions and values, normalized. */
-  loadKind: I32 = new Int32Array(32);
-  loadCase: I32 = new Int32Array(32);
-  loadNode1: I32 = new Int32Array(32);
-  loadNode2: I32 = new Int32Array(32);
-  loadX1: F64 = new Float64Array(32);
-  loadX2: F64 = new Float64Array(32);
-  loadV1: F64 = new Float64Array(32);
-  loadV2: F64 = new Float64Array(32);
-  /**
-   * Per line load k and element e, at k·(nNodes − 1) + e: intensity (N/m,
-   * down) at the element's left and right end; valid for loadNode1 ≤ e < loadNode2.
-   */
-  lineWa: F64 = new Float64Array(256);
-  lineWb: F64 = new Float64Array(256);
-  /** Distinct case labels in first-seen order; loadCase indexes this. */
+  /** Distinct case labels in first-seen order, and each load's index into it. */
   cases: string[] = [];
-  private coords: F64 = new Float64Array(64);
+  loadCase: I32 = new Int32Array(32);
 
   /**
    * Solves `input` (assumed validated by parseBeamInput, apart from the
-   * mechanism check, which is always made). Throws EngineError MECHANISM.
+   * support checks, which are always made). Throws EngineError MECHANISM, or
+   * OUT_OF_RANGE for two supports too close to tell apart.
    * `withReactions` false skips the support reactions (the checks-only path).
    */
   solve(input: BeamInput, withReactions = true): this {
@@ -115,81 +137,35 @@ export class BeamSolution {
     this.invEI = 1 / this.EI;
     const nl = loads.length;
     this.nLoads = nl;
-    this.prepareLoadArrays(nl);
+    this.buildNodes(input);
+    this.buildSegments();
 
-    // ---- nodes: ends, supports, load points and load ends, sorted and distinct
-    let m = 2 + supports.length + 2 * nl;
-    const cs = (this.coords = grow(this.coords, m));
-    m = 0;
-    cs[m++] = 0;
-    cs[m++] = length;
-    for (let i = 0; i < supports.length; i++) cs[m++] = supports[i].x;
-    for (let k = 0; k < nl; k++) {
-      const ld = loads[k];
-      if (ld.kind === 'point' || ld.kind === 'moment') cs[m++] = ld.x;
-      else {
-        cs[m++] = ld.x1;
-        cs[m++] = ld.x2;
-      }
-    }
-    // Insertion sort: a member has a few dozen coordinates at most.
-    for (let i = 1; i < m; i++) {
-      const v = cs[i];
-      let j = i - 1;
-      while (j >= 0 && cs[j] > v) {
-        cs[j + 1] = cs[j];
-        j--;
-      }
-      cs[j + 1] = v;
-    }
-    const xs = (this.nodeX = grow(this.nodeX, m));
-    let nn = 0;
-    for (let i = 0; i < m; i++) {
-      const x = cs[i];
-      if (nn === 0 || x !== xs[nn - 1]) xs[nn++] = x + 0; // + 0 turns −0 into 0
-    }
-    this.nNodes = nn;
+    // ---- stiffness of the spans (per unit EI); every v is held, θ too at fixed supports
+    const nn = this.nNodes;
     const n = 2 * nn;
     this.nDof = n;
-
-    // ---- supports (several at one position merge; fixed wins)
-    const ns = (this.nodeSupport = growInt(this.nodeSupport, nn));
-    ns.fill(0, 0, nn);
-    let fixedCount = 0;
-    for (let i = 0; i < supports.length; i++) {
-      const j = findNode(xs, nn, supports[i].x);
-      const k = supports[i].kind === 'fixed' ? 2 : 1;
-      if (k > ns[j]) ns[j] = k;
-      if (k === 2) fixedCount++;
-    }
-    const sn = (this.supportNodes = growInt(this.supportNodes, nn));
-    let nsup = 0;
-    for (let j = 0; j < nn; j++) if (ns[j] !== 0) sn[nsup++] = j;
-    this.nSupports = nsup;
-    if (fixedCount === 0 && nsup < 2) assertStable(supports);
-
-    // ---- stiffness per unit EI, restraints, factorization
     const band = (this.band = grow(this.band, n * 4));
     const bandFull = (this.bandFull = grow(this.bandFull, n * 4));
     band.fill(0, 0, n * 4);
-    for (let e = 0; e < nn - 1; e++) addElementStiffness(band, 2 * e, xs[e + 1] - xs[e]);
+    const xs = this.nodeX;
+    for (let j = 0; j + 1 < nn; j++) addElementStiffness(band, 2 * j, xs[j + 1] - xs[j]);
     for (let i = 0; i < n * 4; i++) bandFull[i] = band[i];
+    const kind = this.nodeKind;
     for (let j = 0; j < nn; j++) {
-      if (ns[j] === 0) continue;
       restrain(band, 2 * j, n);
-      if (ns[j] === 2) restrain(band, 2 * j + 1, n);
+      if (kind[j] === 2) restrain(band, 2 * j + 1, n);
     }
     if (factorBand(band, n) >= 0) {
       assertStable(supports);
       throw new Error('The stiffness matrix is singular although the supports hold the member: please report this member.');
     }
 
-    // ---- load vectors (all loads side by side), one solve, reactions
-    const ne = nn - 1;
-    this.lineWa = grow(this.lineWa, nl * ne);
-    this.lineWb = grow(this.lineWb, nl * ne);
+    // ---- loads: parts per segment, nodal load vectors (all loads side by side)
     const u = (this.u = grow(this.u, nl * n));
     u.fill(0, 0, nl * n);
+    this.partStart = growInt(this.partStart, nl + 1);
+    this.loadCase = growInt(this.loadCase, nl);
+    this.nParts = 0;
     const cases = this.cases;
     cases.length = 0;
     for (let k = 0; k < nl; k++) {
@@ -198,172 +174,335 @@ export class BeamSolution {
       while (ci < cases.length && cases[ci] !== ld.case) ci++;
       if (ci === cases.length) cases.push(ld.case);
       this.loadCase[k] = ci;
-      this.normalizeLoad(k, ld);
-      this.loadVector(k);
+      this.partStart[k] = this.nParts;
+      this.splitLoad(k, ld);
     }
-    // Keep −F at the support DOFs for the reactions, then hold those DOFs at zero.
-    const R = (this.reactions = grow(this.reactions, 2 * nsup * nl));
-    if (!withReactions) {
-      for (let s = 0; s < nsup; s++) {
-        const dv = 2 * sn[s] * nl;
-        const len = ns[sn[s]] === 2 ? 2 * nl : nl;
-        u.fill(0, dv, dv + len);
-      }
-    }
-    for (let s = 0; withReactions && s < nsup; s++) {
-      const dv = 2 * sn[s] * nl;
-      const fixed = ns[sn[s]] === 2;
-      const rv = 2 * s * nl;
+    this.partStart[nl] = this.nParts;
+    this.buildEvents();
+
+    // ---- solve: keep −F at the support DOFs for the reactions, hold those DOFs at zero
+    const R = (this.reactions = grow(this.reactions, n * nl));
+    for (let j = 0; j < nn; j++) {
+      const dv = 2 * j * nl;
+      const fixed = kind[j] === 2;
       for (let k = 0; k < nl; k++) {
-        R[rv + k] = -u[dv + k];
+        if (withReactions) R[dv + k] = -u[dv + k];
         u[dv + k] = 0;
-        if (fixed) {
-          R[rv + nl + k] = -u[dv + nl + k];
-          u[dv + nl + k] = 0;
-        } else R[rv + nl + k] = 0;
+        if (withReactions) R[dv + nl + k] = fixed ? -u[dv + nl + k] : 0;
+        if (fixed) u[dv + nl + k] = 0;
       }
     }
     solveBandMany(band, n, u, nl);
-    // R = K·(EI u) − F with the unrestrained K (u is still EI times the displacement here).
-    for (let s = 0; withReactions && s < nsup; s++) {
-      const j = sn[s];
-      addRowTimes(bandFull, n, 2 * j, u, nl, R, 2 * s * nl);
-      if (ns[j] === 2) addRowTimes(bandFull, n, 2 * j + 1, u, nl, R, (2 * s + 1) * nl);
+    if (withReactions) {
+      for (let j = 0; j < nn; j++) {
+        addRowTimes(bandFull, n, 2 * j, u, nl, R, 2 * j * nl);
+        if (kind[j] === 2) addRowTimes(bandFull, n, 2 * j + 1, u, nl, R, (2 * j + 1) * nl);
+      }
     }
     const inv = this.invEI;
     for (let i = 0; i < n * nl; i++) u[i] *= inv;
     return this;
   }
 
-  private prepareLoadArrays(nl: number): void {
-    if (this.loadKind.length >= nl) return;
-    const size = Math.max(nl, this.loadKind.length * 2);
-    this.loadKind = new Int32Array(size);
-    this.loadCase = new Int32Array(size);
-    this.loadNode1 = new Int32Array(size);
-    this.loadNode2 = new Int32Array(size);
-    this.loadX1 = new Float64Array(size);
-    this.loadX2 = new Float64Array(size);
-    this.loadV1 = new Float64Array(size);
-    this.loadV2 = new Float64Array(size);
+  /** Distinct support positions; equal x merge (fixed wins); nearly equal x is an error. */
+  private buildNodes(input: BeamInput): void {
+    const supports = input.supports;
+    const ns = supports.length;
+    this.nodeX = grow(this.nodeX, ns);
+    this.nodeKind = growInt(this.nodeKind, ns);
+    const xs = this.nodeX;
+    const kind = this.nodeKind;
+    let nn = 0;
+    let fixed = false;
+    // Insertion into the sorted, distinct list: a member has a handful of supports.
+    for (let i = 0; i < ns; i++) {
+      const x = supports[i].x + 0;
+      const k = supports[i].kind === 'fixed' ? 2 : 1;
+      if (k === 2) fixed = true;
+      let j = 0;
+      while (j < nn && xs[j] < x) j++;
+      if (j < nn && xs[j] === x) {
+        if (k > kind[j]) kind[j] = k;
+        continue;
+      }
+      for (let m = nn; m > j; m--) {
+        xs[m] = xs[m - 1];
+        kind[m] = kind[m - 1];
+      }
+      xs[j] = x;
+      kind[j] = k;
+      nn++;
+    }
+    this.nNodes = nn;
+    if (!fixed && nn < 2) assertStable(supports);
+    for (let j = 0; j + 1 < nn; j++) {
+      if (xs[j + 1] - xs[j] < MIN_SUPPORT_GAP * input.length) assertSupportsApart(supports, input.length);
+    }
   }
 
-  private normalizeLoad(k: number, ld: Load): void {
-    const xs = this.nodeX;
+  private buildSegments(): void {
     const nn = this.nNodes;
-    switch (ld.kind) {
-      case 'point':
-        this.loadKind[k] = KIND_POINT;
-        this.loadX1[k] = this.loadX2[k] = ld.x;
-        this.loadV1[k] = this.loadV2[k] = ld.P;
-        this.loadNode1[k] = this.loadNode2[k] = findNode(xs, nn, ld.x);
-        break;
-      case 'moment':
-        this.loadKind[k] = KIND_MOMENT;
-        this.loadX1[k] = this.loadX2[k] = ld.x;
-        this.loadV1[k] = this.loadV2[k] = ld.M;
-        this.loadNode1[k] = this.loadNode2[k] = findNode(xs, nn, ld.x);
-        break;
-      case 'udl':
-        this.loadKind[k] = KIND_LINE;
-        this.loadX1[k] = ld.x1;
-        this.loadX2[k] = ld.x2;
-        this.loadV1[k] = this.loadV2[k] = ld.w;
-        this.loadNode1[k] = findNode(xs, nn, ld.x1);
-        this.loadNode2[k] = findNode(xs, nn, ld.x2);
-        break;
-      case 'linear':
-        this.loadKind[k] = KIND_LINE;
-        this.loadX1[k] = ld.x1;
-        this.loadX2[k] = ld.x2;
-        this.loadV1[k] = ld.w1;
-        this.loadV2[k] = ld.w2;
-        this.loadNode1[k] = findNode(xs, nn, ld.x1);
-        this.loadNode2[k] = findNode(xs, nn, ld.x2);
-        break;
-    }
-  }
-
-  /**
-   * Nodal load vector of load k into column k of u: −P at v of a point load
-   * (up is positive), +M at θ of a moment, consistent loads of a line load.
-   */
-  private loadVector(k: number): void {
-    const nl = this.nLoads;
-    const u = this.u;
-    const kind = this.loadKind[k];
-    const j1 = this.loadNode1[k];
-    if (kind === KIND_POINT) u[2 * j1 * nl + k] = -this.loadV1[k];
-    else if (kind === KIND_MOMENT) u[(2 * j1 + 1) * nl + k] = this.loadV1[k];
-    else {
-      const xs = this.nodeX;
-      const x1 = this.loadX1[k];
-      const x2 = this.loadX2[k];
-      const w1 = this.loadV1[k];
-      const w2 = this.loadV2[k];
-      const uniform = w1 === w2;
-      const lo = k * (this.nNodes - 1);
-      for (let e = j1; e < this.loadNode2[k]; e++) {
-        const wa = uniform ? w1 : lineIntensity(xs[e], x1, x2, w1, w2);
-        const wb = uniform ? w1 : lineIntensity(xs[e + 1], x1, x2, w1, w2);
-        this.lineWa[lo + e] = wa;
-        this.lineWb[lo + e] = wb;
-        addConsistentLoad(u, 2 * e * nl + k, nl, xs[e + 1] - xs[e], wa, wb);
-      }
-    }
-  }
-
-  isLineLoad(k: number): boolean {
-    return this.loadKind[k] === KIND_LINE;
-  }
-
-  /** Element index containing x (the left one at an interior node), 0 ≤ x ≤ length. */
-  elementAt(x: number): number {
     const xs = this.nodeX;
-    let lo = 0;
-    let hi = this.nNodes - 2;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (xs[mid] < x) lo = mid;
-      else hi = mid - 1;
+    const max = nn + 1;
+    this.segKind = growInt(this.segKind, max);
+    this.segNode = growInt(this.segNode, max);
+    this.segX0 = grow(this.segX0, max);
+    this.segDir = grow(this.segDir, max);
+    this.segLen = grow(this.segLen, max);
+    this.segFrom = grow(this.segFrom, max);
+    this.segTo = grow(this.segTo, max);
+    this.nSeg = 0;
+    if (xs[0] > 0) this.addSegment(SEG_LEFT, 0, xs[0], -1, 0, xs[0]);
+    for (let j = 0; j + 1 < nn; j++) this.addSegment(SEG_SPAN, j, xs[j], 1, xs[j], xs[j + 1]);
+    if (xs[nn - 1] < this.length) this.addSegment(SEG_RIGHT, nn - 1, xs[nn - 1], 1, xs[nn - 1], this.length);
+  }
+
+  private addSegment(kind: number, node: number, x0: number, dir: number, from: number, to: number): void {
+    const g = this.nSeg++;
+    this.segKind[g] = kind;
+    this.segNode[g] = node;
+    this.segX0[g] = x0;
+    this.segDir[g] = dir;
+    this.segLen[g] = to - from;
+    this.segFrom[g] = from;
+    this.segTo[g] = to;
+  }
+
+  /** Index of the first segment with x ≤ its right end (a point on a support belongs to the segment on its left, if any). */
+  segmentAt(x: number): number {
+    const last = this.nSeg - 1;
+    for (let g = 0; g < last; g++) if (x <= this.segTo[g]) return g;
+    return last;
+  }
+
+  /** Local coordinate t of global x in segment g. */
+  localT(g: number, x: number): number {
+    const t = this.segDir[g] > 0 ? x - this.segX0[g] : this.segX0[g] - x;
+    return t < 0 ? 0 : t > this.segLen[g] ? this.segLen[g] : t;
+  }
+
+  /** Global x of local t in segment g (the segment's ends exactly at t = 0 and t = length). */
+  globalX(g: number, t: number): number {
+    if (t === 0) return this.segX0[g];
+    if (t === this.segLen[g]) return this.segDir[g] > 0 ? this.segTo[g] : this.segFrom[g];
+    return this.segDir[g] > 0 ? this.segX0[g] + t : this.segX0[g] - t;
+  }
+
+  private ensureParts(extra: number): void {
+    const need = this.nParts + extra;
+    if (this.partSeg.length >= need) return;
+    const size = Math.max(need, this.partSeg.length * 2);
+    const copyI = (a: I32): I32 => {
+      const b = new Int32Array(size);
+      b.set(a.subarray(0, this.nParts));
+      return b;
+    };
+    const copyF = (a: F64): F64 => {
+      const b = new Float64Array(size);
+      b.set(a.subarray(0, this.nParts));
+      return b;
+    };
+    this.partSeg = copyI(this.partSeg);
+    this.partLoad = copyI(this.partLoad);
+    this.partKind = copyI(this.partKind);
+    this.partT1 = copyF(this.partT1);
+    this.partT2 = copyF(this.partT2);
+    this.partV1 = copyF(this.partV1);
+    this.partV2 = copyF(this.partV2);
+    this.partM0 = copyF(this.partM0);
+    this.partV0 = copyF(this.partV0);
+  }
+
+  /** Splits load k into parts per segment and adds its nodal loads to column k of u. */
+  private splitLoad(k: number, ld: Load): void {
+    if (ld.kind === 'point' || ld.kind === 'moment') {
+      this.ensureParts(1);
+      const g = this.segmentAt(ld.x);
+      const t = this.localT(g, ld.x);
+      const isPoint = ld.kind === 'point';
+      // A couple changes sign when mirrored into a left overhang's coordinate.
+      const v = isPoint ? ld.P : this.segDir[g] > 0 ? ld.M : -ld.M;
+      this.addPart(k, g, isPoint ? PART_POINT : PART_MOMENT, t, t, v, v);
+      return;
     }
-    return lo;
+    const x1 = ld.x1;
+    const x2 = ld.x2;
+    const w1 = ld.kind === 'udl' ? ld.w : ld.w1;
+    const w2 = ld.kind === 'udl' ? ld.w : ld.w2;
+    this.ensureParts(this.nSeg);
+    for (let g = 0; g < this.nSeg; g++) {
+      const from = this.segFrom[g];
+      const to = this.segTo[g];
+      if (!(from < x2 && to > x1)) continue;
+      const a = x1 > from ? x1 : from;
+      const b = x2 < to ? x2 : to;
+      const wa = lineIntensity(a, x1, x2, w1, w2);
+      const wb = lineIntensity(b, x1, x2, w1, w2);
+      if (this.segDir[g] > 0) this.addPart(k, g, PART_LINE, a - this.segX0[g], b - this.segX0[g], wa, wb);
+      else this.addPart(k, g, PART_LINE, this.segX0[g] - b, this.segX0[g] - a, wb, wa);
+    }
   }
 
   /**
-   * Deflection (m, up) of every load alone at ξ in element e, into out[k]:
-   * the Hermite shape values are computed once and applied to each load's
-   * nodal values, plus the particular solution of the loads acting on e
-   * (the same formulas as hermite.ts elementDeflection).
+   * Records one part and its clamped-end actions, and adds its nodal loads:
+   * on a span the consistent loads (exact fixed-end actions reversed), on an
+   * overhang the statically equivalent force −V0 and couple dir·M0 at its support.
    */
-  loadDeflections(e: number, xi: number, out: Float64Array): void {
-    const u = this.u;
+  private addPart(k: number, g: number, kind: number, t1: number, t2: number, v1: number, v2: number): void {
+    const p = this.nParts++;
+    this.partSeg[p] = g;
+    this.partLoad[p] = k;
+    this.partKind[p] = kind;
+    this.partT1[p] = t1;
+    this.partT2[p] = t2;
+    this.partV1[p] = v1;
+    this.partV2[p] = v2;
     const nl = this.nLoads;
-    const le = this.nodeX[e + 1] - this.nodeX[e];
-    const xi2 = xi * xi;
-    const xi3 = xi2 * xi;
-    const n1 = 1 - 3 * xi2 + 2 * xi3;
-    const n2 = le * (xi - 2 * xi2 + xi3);
-    const n3 = 3 * xi2 - 2 * xi3;
-    const n4 = le * (xi3 - xi2);
-    const om = 1 - xi;
-    const l2 = le * le;
-    const pf = -(l2 * l2 * xi2 * om * om * this.invEI) / 120;
-    const ga = 3 - xi;
-    const gb = 2 + xi;
-    const o1 = 2 * e * nl;
-    const o2 = o1 + nl;
-    const o3 = o2 + nl;
-    const o4 = o3 + nl;
-    const ne = this.nNodes - 1;
-    for (let k = 0; k < nl; k++) {
-      let y = n1 * u[o1 + k] + n2 * u[o2 + k] + n3 * u[o3 + k] + n4 * u[o4 + k];
-      if (this.loadKind[k] === KIND_LINE && e >= this.loadNode1[k] && e < this.loadNode2[k]) {
-        const i = k * ne + e;
-        y += pf * (this.lineWb[i] * gb + this.lineWa[i] * ga);
-      }
-      out[k] = y;
+    const u = this.u;
+    const node = this.segNode[g];
+    if (this.segKind[g] === SEG_SPAN) {
+      const le = this.segLen[g];
+      if (kind === PART_POINT) consistentPoint(le, t1, v1, fe);
+      else if (kind === PART_MOMENT) consistentMoment(le, t1, v1, fe);
+      else consistentLine(le, t1, t2, v1, v2, fe);
+      // Internal moment and shear just right of the clamped left end: M0 = f_θ1, V0 = −f_v1.
+      this.partM0[p] = fe[1];
+      this.partV0[p] = -fe[0];
+      const o = 2 * node * nl + k;
+      u[o] += fe[0];
+      u[o + nl] += fe[1];
+      u[o + 2 * nl] += fe[2];
+      u[o + 3 * nl] += fe[3];
+      return;
     }
+    // Overhang: statics of the loads beyond the support (local coordinate, t ≥ 0 away from it).
+    let M0: number;
+    let V0: number;
+    if (kind === PART_POINT) {
+      V0 = v1;
+      M0 = -v1 * t1;
+    } else if (kind === PART_MOMENT) {
+      V0 = 0;
+      M0 = v1;
+    } else {
+      const d = t2 - t1;
+      V0 = ((v1 + v2) / 2) * d;
+      M0 = -(d / 6) * (v1 * (2 * t1 + t2) + v2 * (t1 + 2 * t2));
+    }
+    this.partM0[p] = M0;
+    this.partV0[p] = V0;
+    const o = 2 * node * nl + k;
+    u[o] -= V0;
+    u[o + nl] += this.segDir[g] * M0;
+  }
+
+  /** Events of every part, sorted by segment then position (insertion sort: a few dozen at most). */
+  private buildEvents(): void {
+    const np = this.nParts;
+    const max = 2 * np;
+    this.eventPart = growInt(this.eventPart, max);
+    this.eventClose = growInt(this.eventClose, max);
+    this.eventT = grow(this.eventT, max);
+    this.eventStart = growInt(this.eventStart, this.nSeg + 1);
+    const ep = this.eventPart;
+    const ec = this.eventClose;
+    const et = this.eventT;
+    let m = 0;
+    for (let p = 0; p < np; p++) {
+      const seg = this.partSeg[p];
+      const adds = this.partKind[p] === PART_LINE ? 2 : 1;
+      for (let c = 0; c < adds; c++) {
+        const t = c === 0 ? this.partT1[p] : this.partT2[p];
+        let j = m - 1;
+        while (j >= 0 && (this.partSeg[ep[j]] > seg || (this.partSeg[ep[j]] === seg && (et[j] > t || (et[j] === t && ec[j] > c))))) {
+          ep[j + 1] = ep[j];
+          ec[j + 1] = ec[j];
+          et[j + 1] = et[j];
+          j--;
+        }
+        ep[j + 1] = p;
+        ec[j + 1] = c;
+        et[j + 1] = t;
+        m++;
+      }
+    }
+    this.nEvents = m;
+    let e = 0;
+    for (let g = 0; g < this.nSeg; g++) {
+      this.eventStart[g] = e;
+      while (e < m && this.partSeg[ep[e]] === g) e++;
+    }
+    this.eventStart[this.nSeg] = m;
+  }
+
+  /**
+   * Deflection (m, up) of every load alone at local t of segment g, into
+   * out[k] (0 for loads not on the member there): the nodal part (Hermite on a
+   * span, rigid rotation on an overhang) plus the clamped particular solution
+   * of each of the load's parts on g.
+   */
+  loadDeflections(g: number, t: number, out: Float64Array): void {
+    const nl = this.nLoads;
+    const u = this.u;
+    const node = this.segNode[g];
+    const o = 2 * node * nl;
+    if (this.segKind[g] === SEG_SPAN) {
+      // v = 0 at both supports: y = θ1·N2 + θ2·N4.
+      const le = this.segLen[g];
+      const xi = t / le;
+      const om = 1 - xi;
+      const n2 = le * xi * om * om;
+      const n4 = -le * xi * xi * om;
+      for (let k = 0; k < nl; k++) out[k] = n2 * u[o + nl + k] + n4 * u[o + 3 * nl + k];
+    } else {
+      const dir = this.segDir[g];
+      for (let k = 0; k < nl; k++) out[k] = dir * t * u[o + nl + k];
+    }
+    const inv = this.invEI;
+    for (let k = 0; k < nl; k++) {
+      for (let p = this.partStart[k]; p < this.partStart[k + 1]; p++) {
+        if (this.partSeg[p] === g) out[k] += inv * this.particular(p, t);
+      }
+    }
+  }
+
+  /**
+   * EI × the clamped particular deflection of part p at local t (N·m³):
+   * M0·t²/2 + V0·t³/6 + the Macaulay terms of the load:
+   * −P⟨t − a⟩³/6, −M⟨t − a⟩²/2, and for a line load wa → wb on [a, b]
+   * −wa⟨t − a⟩⁴/24 − s⟨t − a⟩⁵/120 inside it (s = (wb − wa)/(b − a)) and,
+   * beyond it, −(d³μ0 + 3d²μ1 + 3dμ2 + μ3)/6 with d = t − b and the load's
+   * moments about b, μk = δ^(k+1)(wb + (k+1)wa)/((k+1)(k+2)), δ = b − a
+   * (the same polynomial, written without cancellation).
+   */
+  particular(p: number, t: number): number {
+    // Powers are formed the same way for t and t − a, so a load at the clamped end cancels exactly.
+    const t2 = t * t;
+    let y = (this.partM0[p] * t2) / 2 + (this.partV0[p] * (t2 * t)) / 6;
+    const a = this.partT1[p];
+    if (t <= a) return y;
+    const kind = this.partKind[p];
+    const d = t - a;
+    const d2 = d * d;
+    if (kind === PART_POINT) return y - (this.partV1[p] * (d2 * d)) / 6;
+    if (kind === PART_MOMENT) return y - (this.partV1[p] * d2) / 2;
+    const b = this.partT2[p];
+    const wa = this.partV1[p];
+    const wb = this.partV2[p];
+    const delta = b - a;
+    if (t <= b) {
+      const d4 = d2 * d2;
+      y -= (wa * d4) / 24;
+      if (wb !== wa) y -= ((wb - wa) / delta) * ((d4 * d) / 120);
+      return y;
+    }
+    const e = t - b;
+    const g2 = delta * delta;
+    const mu0 = (delta * (wb + wa)) / 2;
+    const mu1 = (g2 * (wb + 2 * wa)) / 6;
+    const mu2 = (g2 * delta * (wb + 3 * wa)) / 12;
+    const mu3 = (g2 * g2 * (wb + 4 * wa)) / 20;
+    return y - (e * (e * (e * mu0 + 3 * mu1) + 3 * mu2) + mu3) / 6;
   }
 }
 

@@ -1,16 +1,18 @@
 /**
- * The Hermite (cubic) Euler–Bernoulli beam element and the exact
- * clamped–clamped solution of a linearly varying load over the whole element.
+ * The Hermite (cubic) Euler–Bernoulli beam element and the exact fixed-end
+ * actions of loads anywhere on it.
  *
- * Conventions: local coordinate ξ = (x − x_i)/le ∈ [0, 1]; DOFs per node are
- * v (m, positive up) and θ = dv/dx (rad, positive counter-clockwise); loads
- * q (N/m) positive down, so EI·v⁗ = −q (domain.md §4).
+ * Conventions: local coordinate x from the element's left node (ξ = x/le);
+ * DOFs per node v (m, positive up) and θ = dv/dx (rad, positive
+ * counter-clockwise); loads positive down, moments positive counter-clockwise;
+ * EI·v⁗ = −q (domain.md §4).
  *
  * Sources: the stiffness matrix and shape functions are the standard
  * direct-stiffness beam element (domain.md §4, "Direct stiffness method");
- * the consistent nodal loads are ∫N·q over the element, integrated exactly
- * below; the clamped–clamped particular solution was derived by integrating
- * EI·v⁗ = −q four times with v = v′ = 0 at both ends.
+ * the consistent nodal loads are the work-equivalent loads f_i = −P·N_i(a)
+ * (force), f_i = M·N_i′(a) (couple) and f_i = −∫N_i·q dx (line load), which
+ * for this element equal the exact fixed-end actions with their signs
+ * reversed, so nodal displacements are exact.
  */
 
 /**
@@ -38,88 +40,90 @@ export function addElementStiffness(band: Float64Array, a: number, le: number): 
 }
 
 /**
- * Adds the consistent (fixed-end) nodal loads of a downward line load varying
- * linearly from wa (ξ = 0) to wb (ξ = 1) to `f` at a, a + stride, a + 2·stride,
- * a + 3·stride (v1, θ1, v2, θ2), as upward forces and counter-clockwise moments:
- * F1 = −le(7wa + 3wb)/20, M1 = −le²(wa/20 + wb/30),
- * F2 = −le(3wa + 7wb)/20, M2 = +le²(wa/30 + wb/20).
- * (Uniform case: ∓wle/2, ∓wle²/12, the textbook fixed-end actions.)
+ * Consistent nodal loads [F1, M1, F2, M2] (up, counter-clockwise) of a
+ * downward force P at x = a of an element of length le: −P·[N1, N2, N3, N4](a)
+ * with N1 = 1 − 3ξ² + 2ξ³, N2 = le(ξ − 2ξ² + ξ³), N3 = 3ξ² − 2ξ³, N4 = le(ξ³ − ξ²).
+ * (At midspan: −P/2, −Pl/8, −P/2, +Pl/8, the textbook fixed-end actions.)
  */
-export function addConsistentLoad(f: Float64Array, a: number, stride: number, le: number, wa: number, wb: number): void {
-  const l2 = le * le;
-  f[a] -= (le * (7 * wa + 3 * wb)) / 20;
-  f[a + stride] -= l2 * (wa / 20 + wb / 30);
-  f[a + 2 * stride] -= (le * (3 * wa + 7 * wb)) / 20;
-  f[a + 3 * stride] += l2 * (wa / 30 + wb / 20);
-}
-
-/**
- * Deflection (m, up) at ξ of an element: Hermite interpolation of the nodal
- * values plus the clamped–clamped particular solution of its line load
- * (wa → wb, N/m down), given per unit EI times `invEI`:
- * v_p(ξ) = −le⁴ ξ²(1 − ξ)² [wb(2 + ξ) + wa(3 − ξ)] / (120 EI).
- * v1, t1, v2, t2 are already in m and rad.
- */
-export function elementDeflection(
-  xi: number,
-  le: number,
-  v1: number,
-  t1: number,
-  v2: number,
-  t2: number,
-  wa: number,
-  wb: number,
-  invEI: number,
-): number {
+export function consistentPoint(le: number, a: number, P: number, out: Float64Array): void {
+  const xi = a / le;
   const xi2 = xi * xi;
-  const xi3 = xi2 * xi;
-  const n1 = 1 - 3 * xi2 + 2 * xi3;
-  const n2 = le * (xi - 2 * xi2 + xi3);
-  const n3 = 3 * xi2 - 2 * xi3;
-  const n4 = le * (xi3 - xi2);
-  let y = n1 * v1 + n2 * t1 + n3 * v2 + n4 * t2;
-  if (wa !== 0 || wb !== 0) {
-    const om = 1 - xi;
-    const l2 = le * le;
-    y -= (l2 * l2 * xi2 * om * om * (wb * (2 + xi) + wa * (3 - xi)) * invEI) / 120;
-  }
-  return y;
+  const om = 1 - xi;
+  out[0] = -P * om * om * (1 + 2 * xi);
+  out[1] = -P * le * xi * om * om;
+  out[2] = -P * xi2 * (3 - 2 * xi);
+  out[3] = P * le * xi2 * om;
 }
 
 /**
- * Monomial coefficients c[0..5] (m) of the element deflection in ξ, written
- * into `c` at `o`: y(ξ) = Σ c_k ξ^k. Used for root finding of y′; values are
- * evaluated with `elementDeflection` (the shape-function form is exact at the nodes).
+ * Consistent nodal loads of a counter-clockwise couple M at x = a:
+ * M·[N1′, N2′, N3′, N4′](a), derivatives with respect to x.
  */
-export function elementCoefficients(
-  c: Float64Array,
-  o: number,
-  le: number,
-  v1: number,
-  t1: number,
-  v2: number,
-  t2: number,
-  wa: number,
-  wb: number,
-  invEI: number,
-): void {
-  const lt1 = le * t1;
-  const lt2 = le * t2;
-  c[o] = v1;
-  c[o + 1] = lt1;
-  c[o + 2] = 3 * (v2 - v1) - 2 * lt1 - lt2;
-  c[o + 3] = 2 * (v1 - v2) + lt1 + lt2;
-  c[o + 4] = 0;
-  c[o + 5] = 0;
-  if (wa !== 0 || wb !== 0) {
-    // ξ²(1−ξ)²(A + Bξ) = Aξ² + (B − 2A)ξ³ + (A − 2B)ξ⁴ + Bξ⁵, A = 3wa + 2wb, B = wb − wa.
-    const l2 = le * le;
-    const s = (-l2 * l2 * invEI) / 120;
-    const A = 3 * wa + 2 * wb;
-    const B = wb - wa;
-    c[o + 2] += s * A;
-    c[o + 3] += s * (B - 2 * A);
-    c[o + 4] = s * (A - 2 * B);
-    c[o + 5] = s * B;
+export function consistentMoment(le: number, a: number, M: number, out: Float64Array): void {
+  const xi = a / le;
+  const om = 1 - xi;
+  const d = (6 * xi * om) / le;
+  out[0] = -M * d;
+  out[1] = M * om * (1 - 3 * xi);
+  out[2] = M * d;
+  out[3] = M * xi * (3 * xi - 2);
+}
+
+/** N_i^(k)(ξ)/k! for k = 0..3 (Taylor coefficients in ξ), per shape function, le factors left out of N2, N4. */
+function taylorShape(xi: number, t: Float64Array): void {
+  const xi2 = xi * xi;
+  // N1 = 1 − 3ξ² + 2ξ³
+  t[0] = 1 - 3 * xi2 + 2 * xi2 * xi;
+  t[1] = -6 * xi + 6 * xi2;
+  t[2] = -3 + 6 * xi;
+  t[3] = 2;
+  // N2/le = ξ − 2ξ² + ξ³
+  t[4] = xi - 2 * xi2 + xi2 * xi;
+  t[5] = 1 - 4 * xi + 3 * xi2;
+  t[6] = -2 + 3 * xi;
+  t[7] = 1;
+  // N3 = 3ξ² − 2ξ³
+  t[8] = 3 * xi2 - 2 * xi2 * xi;
+  t[9] = 6 * xi - 6 * xi2;
+  t[10] = 3 - 6 * xi;
+  t[11] = -2;
+  // N4/le = ξ³ − ξ²
+  t[12] = xi2 * xi - xi2;
+  t[13] = 3 * xi2 - 2 * xi;
+  t[14] = 3 * xi - 1;
+  t[15] = 1;
+}
+
+const shape = new Float64Array(16);
+
+/**
+ * Consistent nodal loads of a downward line load varying linearly from wa at
+ * x = a to wb at x = b (0 ≤ a < b ≤ le): f_i = −∫ N_i q dx, integrated
+ * exactly along the load (u ∈ [0, 1], ξ = ξa + Δu, q = wa(1 − u) + wb·u):
+ * f_i = −le·Δ·Σ_k [N_i^(k)(ξa)Δ^k/k!]·[wa/((k+1)(k+2)) + wb/(k+2)],
+ * free of cancellation even for very short loads.
+ * (Uniform over the whole element: −wl/2, −wl²/12, −wl/2, +wl²/12.)
+ */
+export function consistentLine(le: number, a: number, b: number, wa: number, wb: number, out: Float64Array): void {
+  const xi = a / le;
+  const delta = (b - a) / le;
+  taylorShape(xi, shape);
+  let f1 = 0;
+  let f2 = 0;
+  let f3 = 0;
+  let f4 = 0;
+  let dk = 1;
+  for (let k = 0; k <= 3; k++) {
+    const g = dk * (wa / ((k + 1) * (k + 2)) + wb / (k + 2));
+    f1 += shape[k] * g;
+    f2 += shape[4 + k] * g;
+    f3 += shape[8 + k] * g;
+    f4 += shape[12 + k] * g;
+    dk *= delta;
   }
+  const s = -le * delta;
+  out[0] = s * f1;
+  out[1] = s * le * f2;
+  out[2] = s * f3;
+  out[3] = s * le * f4;
 }

@@ -1,5 +1,5 @@
 import { EngineError } from './engine-error';
-import { assertStable } from './stability';
+import { assertStable, assertSupportsApart } from './stability';
 import type { BeamInput, Check, Combination, Load, Support } from './types';
 
 /**
@@ -7,20 +7,25 @@ import type { BeamInput, Check, Combination, Load, Support } from './types';
  * EngineError naming the field (`loads[3].x`), what is wrong and how to fix it.
  * Strict on purpose: an unexpected field is an error, because a misspelt
  * `maxabs` silently dropping a cap would pass members that should fail.
+ * Paths and messages are only built when something is wrong, so validating
+ * a large schedule costs little more than copying it.
  */
 
 type Json = Record<string, unknown>;
 
-const TOP_KEYS = ['length', 'E', 'I', 'supports', 'loads', 'combinations', 'probes', 'checks', 'label'];
-const LOAD_KEYS: Record<Load['kind'], string[]> = {
-  point: ['case', 'kind', 'x', 'P'],
-  udl: ['case', 'kind', 'x1', 'x2', 'w'],
-  linear: ['case', 'kind', 'x1', 'x2', 'w1', 'w2'],
-  moment: ['case', 'kind', 'x', 'M'],
+const TOP_KEYS = new Set(['length', 'E', 'I', 'supports', 'loads', 'combinations', 'probes', 'checks', 'label']);
+const SUPPORT_KEYS = new Set(['x', 'kind']);
+const CHECK_KEYS = new Set(['name', 'combination', 'ratio', 'maxAbs', 'plus']);
+const LOAD_KEYS: Record<Load['kind'], Set<string>> = {
+  point: new Set(['case', 'kind', 'x', 'P']),
+  udl: new Set(['case', 'kind', 'x1', 'x2', 'w']),
+  linear: new Set(['case', 'kind', 'x1', 'x2', 'w1', 'w2']),
+  moment: new Set(['case', 'kind', 'x', 'M']),
 };
-const LOAD_UNITS: Record<string, string> = { P: 'N', w: 'N/m', w1: 'N/m', w2: 'N/m', M: 'N·m' };
+const UNITS: Record<string, string> = { x: 'm', x1: 'm', x2: 'm', P: 'N', w: 'N/m', w1: 'N/m', w2: 'N/m', M: 'N·m' };
 
 function describe(v: unknown): string {
+  if (v === undefined) return 'missing';
   if (v === null) return 'null';
   if (Array.isArray(v)) return 'an array';
   if (typeof v === 'string') return `the text ${JSON.stringify(v.length > 40 ? `${v.slice(0, 40)}…` : v)}`;
@@ -29,151 +34,157 @@ function describe(v: unknown): string {
 
 /** `combinations.total` or `combinations["live L/360"]`. */
 export function keyPath(base: string, key: string): string {
-  return /^[A-Za-z_][A-Za-z0-9_]*$/.test(key) ? `${base}.${key}` : `${base}[${JSON.stringify(key)}]`;
+  const head = base === '' ? '' : base;
+  if (/^[A-Za-z_][A-Za-z0-9_]*$/.test(key)) return head ? `${head}.${key}` : key;
+  return `${head}[${JSON.stringify(key)}]`;
 }
 
-function object(v: unknown, path: string, what: string): Json {
-  if (typeof v !== 'object' || v === null || Array.isArray(v)) {
-    throw new EngineError('INVALID_TYPE', path, `${path || 'The input'} must be an object (${what}), but it is ${describe(v)}.`);
-  }
-  return v as Json;
+/** A field's path from its parent (`loads`, 3) and name (`x`), built only on error. */
+function at(list: string, index: number, key?: string): string {
+  const base = index < 0 ? list : `${list}[${index}]`;
+  return key === undefined ? base : keyPath(base, key);
 }
 
-function array(v: unknown, path: string, what: string): unknown[] {
-  if (!Array.isArray(v)) {
-    throw new EngineError('INVALID_TYPE', path, `${path} must be an array (${what}), but it is ${v === undefined ? 'missing' : describe(v)}.`);
+function isObject(v: unknown): v is Json {
+  return typeof v === 'object' && v !== null && !Array.isArray(v);
+}
+
+function requireObject(v: unknown, path: () => string, what: string): Json {
+  if (!isObject(v)) {
+    const p = path();
+    throw new EngineError('INVALID_TYPE', p, `${p || 'The input'} must be an object (${what}), but it is ${describe(v)}.`);
   }
   return v;
 }
 
-function onlyKeys(o: Json, allowed: readonly string[], path: string): void {
-  for (const key of Object.keys(o)) {
-    if (!allowed.includes(key)) {
-      const where = path ? keyPath(path, key) : key;
-      throw new EngineError('INVALID_TYPE', where, `Unexpected field "${key}"${path ? ` in ${path}` : ''}. Allowed fields: ${allowed.join(', ')} (names are case-sensitive).`);
+function requireArray(v: unknown, path: string, what: string): unknown[] {
+  if (!Array.isArray(v)) throw new EngineError('INVALID_TYPE', path, `${path} must be an array (${what}), but it is ${describe(v)}.`);
+  return v;
+}
+
+function onlyKeys(o: Json, allowed: Set<string>, list: string, index: number): void {
+  for (const key in o) {
+    if (!allowed.has(key)) {
+      const p = at(list, index, key);
+      const where = list === '' ? '' : ` in ${at(list, index)}`;
+      throw new EngineError('INVALID_TYPE', p, `Unexpected field "${key}"${where}. Allowed fields: ${[...allowed].join(', ')} (names are case-sensitive).`);
     }
   }
 }
 
-function finite(v: unknown, path: string, unit: string): number {
-  if (typeof v !== 'number') {
-    throw new EngineError('INVALID_TYPE', path, `${path} must be a number in ${unit}, but it is ${v === undefined ? 'missing' : describe(v)}.`);
-  }
-  if (!Number.isFinite(v)) {
-    throw new EngineError('NOT_FINITE', path, `${path} must be a finite number in ${unit}, but it is ${String(v)}.`);
-  }
-  return v + 0;
+function finite(v: unknown, list: string, index: number, key: string | undefined, unit: string): number {
+  if (typeof v === 'number' && v - v === 0) return v + 0; // finite (NaN − NaN and ∞ − ∞ are NaN); −0 → 0
+  const p = at(list, index, key);
+  if (typeof v !== 'number') throw new EngineError('INVALID_TYPE', p, `${p} must be a number in ${unit}, but it is ${describe(v)}.`);
+  throw new EngineError('NOT_FINITE', p, `${p} must be a finite number in ${unit}, but it is ${String(v)}.`);
 }
 
-function positive(v: unknown, path: string, unit: string, what: string): number {
-  const n = finite(v, path, unit);
-  if (n <= 0) throw new EngineError('NOT_POSITIVE', path, `${path} (${what}) must be greater than zero, but it is ${n} ${unit}.`);
+function positive(v: unknown, list: string, index: number, key: string | undefined, unit: string, what: string): number {
+  const n = finite(v, list, index, key, unit);
+  if (n <= 0) {
+    const p = at(list, index, key);
+    throw new EngineError('NOT_POSITIVE', p, `${p} (${what}) must be greater than zero, but it is ${n} ${unit}.`);
+  }
   return n;
 }
 
-function position(v: unknown, path: string, length: number): number {
-  const x = finite(v, path, 'm');
+function position(v: unknown, list: string, index: number, key: string | undefined, length: number): number {
+  const x = finite(v, list, index, key, 'm');
   if (x < 0 || x > length) {
-    throw new EngineError('OUT_OF_RANGE', path, `${path} = ${x} m lies outside the member, which runs from x = 0 to x = ${length} m. Measure x from the left end.`);
+    const p = at(list, index, key);
+    throw new EngineError('OUT_OF_RANGE', p, `${p} = ${x} m lies outside the member, which runs from x = 0 to x = ${length} m. Measure x from the left end.`);
   }
   return x;
 }
 
-function label(v: unknown, path: string, what: string): string {
-  if (typeof v !== 'string' || v.trim() === '') {
-    throw new EngineError('INVALID_TYPE', path, `${path} must be a non-empty text (${what}), but it is ${v === undefined ? 'missing' : describe(v)}.`);
-  }
-  return v;
+function label(v: unknown, list: string, index: number, key: string, what: string): string {
+  if (typeof v === 'string' && v.trim() !== '') return v;
+  const p = at(list, index, key);
+  throw new EngineError('INVALID_TYPE', p, `${p} must be a non-empty text (${what}), but it is ${describe(v)}.`);
 }
 
-function parseSupport(raw: unknown, path: string, length: number): Support {
-  const o = object(raw, path, 'a support such as {"x": 0, "kind": "pin"}');
-  onlyKeys(o, ['x', 'kind'], path);
-  const x = position(o.x, `${path}.x`, length);
-  if (o.kind !== 'pin' && o.kind !== 'fixed') {
-    throw new EngineError('UNKNOWN_KIND', `${path}.kind`, `${path}.kind must be "pin" or "fixed", but it is ${o.kind === undefined ? 'missing' : describe(o.kind)}.`);
+function parseSupport(raw: unknown, i: number, length: number): Support {
+  const o = requireObject(raw, () => at('supports', i), 'a support such as {"x": 0, "kind": "pin"}');
+  onlyKeys(o, SUPPORT_KEYS, 'supports', i);
+  const x = position(o.x, 'supports', i, 'x', length);
+  const kind = o.kind;
+  if (kind !== 'pin' && kind !== 'fixed') {
+    const p = at('supports', i, 'kind');
+    throw new EngineError('UNKNOWN_KIND', p, `${p} must be "pin" or "fixed", but it is ${describe(kind)}.`);
   }
-  return { x, kind: o.kind };
+  return { x, kind };
 }
 
-function parseLoad(raw: unknown, path: string, length: number): Load {
-  const o = object(raw, path, 'a load such as {"case": "D", "kind": "udl", "x1": 0, "x2": 6, "w": 3500}');
+function parseLoad(raw: unknown, i: number, length: number): Load {
+  const o = requireObject(raw, () => at('loads', i), 'a load such as {"case": "D", "kind": "udl", "x1": 0, "x2": 6, "w": 3500}');
   const kind = o.kind;
   if (kind !== 'point' && kind !== 'udl' && kind !== 'linear' && kind !== 'moment') {
+    const p = at('loads', i, 'kind');
+    throw new EngineError('UNKNOWN_KIND', p, `${p} must be one of "point", "udl", "linear", "moment", but it is ${describe(kind)}.`);
+  }
+  onlyKeys(o, LOAD_KEYS[kind], 'loads', i);
+  const c = label(o.case, 'loads', i, 'case', 'the load case, e.g. "D" or "L"');
+  if (kind === 'point') return { case: c, kind, x: position(o.x, 'loads', i, 'x', length), P: finite(o.P, 'loads', i, 'P', UNITS.P) };
+  if (kind === 'moment') return { case: c, kind, x: position(o.x, 'loads', i, 'x', length), M: finite(o.M, 'loads', i, 'M', UNITS.M) };
+  const x1 = position(o.x1, 'loads', i, 'x1', length);
+  const x2 = position(o.x2, 'loads', i, 'x2', length);
+  if (!(x2 > x1)) {
+    const p = at('loads', i, 'x2');
     throw new EngineError(
-      'UNKNOWN_KIND',
-      `${path}.kind`,
-      `${path}.kind must be one of "point", "udl", "linear", "moment", but it is ${kind === undefined ? 'missing' : describe(kind)}.`,
+      'OUT_OF_RANGE',
+      p,
+      `${p} = ${x2} m must be greater than x1 = ${x1} m: a distributed load runs left to right over a length greater than zero.`,
     );
   }
-  onlyKeys(o, LOAD_KEYS[kind], path);
-  const c = label(o.case, `${path}.case`, 'the load case, e.g. "D" or "L"');
-  const value = (key: string): number => finite(o[key], `${path}.${key}`, LOAD_UNITS[key]);
-  switch (kind) {
-    case 'point':
-      return { case: c, kind, x: position(o.x, `${path}.x`, length), P: value('P') };
-    case 'moment':
-      return { case: c, kind, x: position(o.x, `${path}.x`, length), M: value('M') };
-    case 'udl':
-    case 'linear': {
-      const x1 = position(o.x1, `${path}.x1`, length);
-      const x2 = position(o.x2, `${path}.x2`, length);
-      if (!(x2 > x1)) {
-        throw new EngineError(
-          'OUT_OF_RANGE',
-          `${path}.x2`,
-          `${path}.x2 = ${x2} m must be greater than x1 = ${x1} m: a distributed load runs left to right over a length greater than zero.`,
-        );
-      }
-      return kind === 'udl' ? { case: c, kind, x1, x2, w: value('w') } : { case: c, kind, x1, x2, w1: value('w1'), w2: value('w2') };
-    }
-  }
+  if (kind === 'udl') return { case: c, kind, x1, x2, w: finite(o.w, 'loads', i, 'w', UNITS.w) };
+  return { case: c, kind, x1, x2, w1: finite(o.w1, 'loads', i, 'w1', UNITS.w1), w2: finite(o.w2, 'loads', i, 'w2', UNITS.w2) };
 }
 
 function parseCombinations(raw: unknown, cases: readonly string[]): Record<string, Combination> {
-  const o = object(raw, 'combinations', 'named factors per load case, e.g. {"total": {"D": 1, "L": 1}}');
+  const o = requireObject(raw, () => 'combinations', 'named factors per load case, e.g. {"total": {"D": 1, "L": 1}}');
   const out: Record<string, Combination> = {};
-  for (const name of Object.keys(o)) {
+  for (const name in o) {
     const path = keyPath('combinations', name);
     if (name.trim() === '') throw new EngineError('INVALID_TYPE', path, 'A combination name must not be empty.');
-    const factors = object(o[name], path, 'factors per load case, e.g. {"D": 1, "L": 1}');
+    const factors = requireObject(o[name], () => path, 'factors per load case, e.g. {"D": 1, "L": 1}');
     const combination: Combination = {};
-    for (const c of Object.keys(factors)) {
-      const fpath = keyPath(path, c);
+    for (const c in factors) {
       if (!cases.includes(c)) {
         throw new EngineError(
           'UNKNOWN_CASE',
-          fpath,
+          keyPath(path, c),
           `Combination "${name}" names load case "${c}", but no load has that case. ${cases.length ? `Cases of this member: ${cases.join(', ')}` : 'This member has no loads'} (case labels are case-sensitive).`,
         );
       }
-      combination[c] = finite(factors[c], fpath, 'a plain factor');
+      combination[c] = finite(factors[c], path, -1, c, 'a plain factor');
     }
     out[name] = combination;
   }
   return out;
 }
 
-function parseCheck(raw: unknown, path: string, combinations: Record<string, Combination>): Check {
-  const o = object(raw, path, 'a check such as {"name": "live L/360", "combination": "live", "ratio": 360}');
-  onlyKeys(o, ['name', 'combination', 'ratio', 'maxAbs', 'plus'], path);
-  const name = label(o.name, `${path}.name`, 'the check name');
-  const combination = label(o.combination, `${path}.combination`, 'the name of one of the combinations');
+function parseCheck(raw: unknown, i: number, combinations: Record<string, Combination>): Check {
+  const o = requireObject(raw, () => at('checks', i), 'a check such as {"name": "live L/360", "combination": "live", "ratio": 360}');
+  onlyKeys(o, CHECK_KEYS, 'checks', i);
+  const name = label(o.name, 'checks', i, 'name', 'the check name');
+  const combination = label(o.combination, 'checks', i, 'combination', 'the name of one of the combinations');
   if (!Object.prototype.hasOwnProperty.call(combinations, combination)) {
     const names = Object.keys(combinations);
     throw new EngineError(
       'UNKNOWN_COMBINATION',
-      `${path}.combination`,
+      at('checks', i, 'combination'),
       `Check "${name}" names combination "${combination}", which is not defined. ${names.length ? `Defined: ${names.join(', ')}` : 'Define it under "combinations"'}.`,
     );
   }
-  const ratio = positive(o.ratio, `${path}.ratio`, 'the n of l/n', 'the span ratio');
-  const check: Check = { name, combination, ratio };
-  if (o.maxAbs !== undefined && o.maxAbs !== null) check.maxAbs = positive(o.maxAbs, `${path}.maxAbs`, 'm', 'the absolute cap');
-  else check.maxAbs = null;
+  const ratio = positive(o.ratio, 'checks', i, 'ratio', 'the n of l/n', 'the span ratio');
+  const maxAbs = o.maxAbs === undefined || o.maxAbs === null ? null : positive(o.maxAbs, 'checks', i, 'maxAbs', 'm', 'the absolute cap');
+  const check: Check = { name, combination, ratio, maxAbs };
   if (o.plus !== undefined && o.plus !== null) {
-    const plus = finite(o.plus, `${path}.plus`, 'm');
-    if (plus < 0) throw new EngineError('NOT_POSITIVE', `${path}.plus`, `${path}.plus (the additive allowance) must be zero or more, but it is ${plus} m.`);
+    const plus = finite(o.plus, 'checks', i, 'plus', 'm');
+    if (plus < 0) {
+      const p = at('checks', i, 'plus');
+      throw new EngineError('NOT_POSITIVE', p, `${p} (the additive allowance) must be zero or more, but it is ${plus} m.`);
+    }
     check.plus = plus;
   }
   return check;
@@ -185,9 +196,11 @@ function parseCheck(raw: unknown, path: string, combinations: Record<string, Com
  *
  * - Units: SI base units only (m, N, N/m, N·m, Pa, m^4); loads positive down,
  *   moments positive counter-clockwise (calc-contract.md).
- * - Positions must lie within 0 ≤ x ≤ length; distributed loads need x1 < x2.
- * - `combinations` is optional: when absent, each load case becomes a
- *   combination of its own, named by the case label ({"D": {"D": 1}, …}).
+ * - Positions must lie within 0 ≤ x ≤ length; distributed loads need x1 < x2;
+ *   two supports at different x must be at least 1e-9 × length apart.
+ * - `loads` may be omitted (no loads). `combinations` is optional: when
+ *   absent, each load case becomes a combination of its own, named by the
+ *   case label ({"D": {"D": 1}, …}).
  * - A combination may not name a case that no load has (UNKNOWN_CASE); a
  *   check may not name an undefined combination (UNKNOWN_COMBINATION).
  * - A mechanism is rejected here too (MECHANISM, path `supports`).
@@ -195,32 +208,40 @@ function parseCheck(raw: unknown, path: string, combinations: Record<string, Com
  * The result is a fresh object holding only the contract's fields.
  */
 export function parseBeamInput(raw: unknown): BeamInput {
-  const o = object(raw, '', 'a BeamInput with length, E, I, supports, loads, combinations');
-  onlyKeys(o, TOP_KEYS, '');
+  const o = requireObject(raw, () => '', 'a BeamInput with length, E, I, supports, loads, combinations');
+  onlyKeys(o, TOP_KEYS, '', -1);
   if (o.label !== undefined && typeof o.label !== 'string') {
     throw new EngineError('INVALID_TYPE', 'label', `label must be a text describing the member, but it is ${describe(o.label)}.`);
   }
-  const length = positive(o.length, 'length', 'm', 'the member length');
-  const E = positive(o.E, 'E', 'Pa', "Young's modulus");
-  const I = positive(o.I, 'I', 'm^4', 'the second moment of area');
-  const supports = array(o.supports, 'supports', 'e.g. [{"x": 0, "kind": "pin"}, {"x": 6, "kind": "pin"}]').map((s, i) =>
-    parseSupport(s, `supports[${i}]`, length),
-  );
+  const length = positive(o.length, 'length', -1, undefined, 'm', 'the member length');
+  const E = positive(o.E, 'E', -1, undefined, 'Pa', "Young's modulus");
+  const I = positive(o.I, 'I', -1, undefined, 'm^4', 'the second moment of area');
+  const rawSupports = requireArray(o.supports, 'supports', 'e.g. [{"x": 0, "kind": "pin"}, {"x": 6, "kind": "pin"}]');
+  const supports: Support[] = new Array(rawSupports.length);
+  for (let i = 0; i < rawSupports.length; i++) supports[i] = parseSupport(rawSupports[i], i, length);
   assertStable(supports);
-  const loads = array(o.loads === undefined ? [] : o.loads, 'loads', 'e.g. [{"case": "D", "kind": "udl", "x1": 0, "x2": 6, "w": 3500}]').map((l, i) =>
-    parseLoad(l, `loads[${i}]`, length),
-  );
-  const cases = [...new Set(loads.map((l) => l.case))];
-  const combinations =
-    o.combinations === undefined ? Object.fromEntries(cases.map((c) => [c, { [c]: 1 }])) : parseCombinations(o.combinations, cases);
+  assertSupportsApart(supports, length);
+  const rawLoads = o.loads === undefined ? [] : requireArray(o.loads, 'loads', 'e.g. [{"case": "D", "kind": "udl", "x1": 0, "x2": 6, "w": 3500}]');
+  const loads: Load[] = new Array(rawLoads.length);
+  const cases: string[] = [];
+  for (let i = 0; i < rawLoads.length; i++) {
+    const load = parseLoad(rawLoads[i], i, length);
+    loads[i] = load;
+    if (!cases.includes(load.case)) cases.push(load.case);
+  }
+  let combinations: Record<string, Combination>;
+  if (o.combinations === undefined) {
+    combinations = {};
+    for (const c of cases) combinations[c] = { [c]: 1 };
+  } else combinations = parseCombinations(o.combinations, cases);
   const input: BeamInput = { length, E, I, supports, loads, combinations };
   if (o.probes !== undefined) {
-    input.probes = array(o.probes, 'probes', 'positions in m, e.g. [3.6, 9.0]').map((p, i) => position(p, `probes[${i}]`, length));
+    const raw = requireArray(o.probes, 'probes', 'positions in m, e.g. [3.6, 9.0]');
+    input.probes = raw.map((p, i) => position(p, 'probes', i, undefined, length));
   }
   if (o.checks !== undefined) {
-    input.checks = array(o.checks, 'checks', 'e.g. [{"name": "live L/360", "combination": "live", "ratio": 360}]').map((c, i) =>
-      parseCheck(c, `checks[${i}]`, combinations),
-    );
+    const raw = requireArray(o.checks, 'checks', 'e.g. [{"name": "live L/360", "combination": "live", "ratio": 360}]');
+    input.checks = raw.map((c, i) => parseCheck(c, i, combinations));
   }
   return input;
 }

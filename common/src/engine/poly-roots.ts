@@ -23,8 +23,8 @@ function horner(p: Float64Array, deg: number, x: number): number {
 /**
  * Newton–bisection on [lo, hi] where p(lo) = plo and p(hi) = phi have
  * opposite signs: starts at the secant point, takes Newton steps while they
- * stay inside the shrinking bracket, bisects otherwise; stops when the step
- * is below a few ulps (full double precision).
+ * stay inside the shrinking bracket, bisects otherwise; stops at full double
+ * precision (a Newton step below 1e-10, or a step of a few ulps).
  */
 function refine(p: Float64Array, deg: number, lo: number, hi: number, plo: number, phi: number): number {
   let x = lo + (hi - lo) * (plo / (plo - phi));
@@ -40,9 +40,13 @@ function refine(p: Float64Array, deg: number, lo: number, hi: number, plo: numbe
     if ((f < 0) === (plo < 0)) lo = x;
     else hi = x;
     let next = x - f / df;
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    const newton = next > lo && next < hi;
+    if (!newton) next = 0.5 * (lo + hi);
     const step = next - x;
-    if ((step < 0 ? -step : step) <= 4e-16 * (x < 0 ? -x : x) || next === lo || next === hi) return next;
+    const size = step < 0 ? -step : step;
+    // Newton converges quadratically: once a Newton step is below 1e-10 (the interval is
+    // the unit one), the point it lands on is accurate to about 1e-20, i.e. to the last bit.
+    if ((newton && size <= 1e-10) || size <= 4e-16 * (x < 0 ? -x : x) || next === lo || next === hi) return next;
     x = next;
   }
   return x;

@@ -26,3 +26,28 @@ export function assertStable(supports: readonly Support[]): void {
     `Every support is a pin at x = ${x} m, so the member can rotate about that point (a mechanism). Add a support at another position, or make this one fixed.`,
   );
 }
+
+/** Supports closer than this fraction of the length cannot be told apart by the solve. */
+export const MIN_SUPPORT_GAP = 1e-9;
+
+/**
+ * Two supports at different x closer than MIN_SUPPORT_GAP × length: the
+ * span between them would be so short that its stiffness swamps the rest of
+ * the solve. Equal x is fine (they merge). Throws EngineError OUT_OF_RANGE
+ * with the path of the second support.
+ */
+export function assertSupportsApart(supports: readonly Support[], length: number): void {
+  const gap = MIN_SUPPORT_GAP * length;
+  for (let i = 0; i < supports.length; i++) {
+    for (let j = 0; j < supports.length; j++) {
+      const d = supports[i].x - supports[j].x;
+      if (d > 0 && d < gap) {
+        throw new EngineError(
+          'OUT_OF_RANGE',
+          `supports[${i}].x`,
+          `supports[${i}] at x = ${supports[i].x} m is only ${d} m from supports[${j}] at x = ${supports[j].x} m: supports closer than ${MIN_SUPPORT_GAP} × the length cannot be told apart. Give them the same x (they merge; a fixed one wins) or move them apart.`,
+        );
+      }
+    }
+  }
+}
