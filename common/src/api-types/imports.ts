@@ -86,7 +86,8 @@ export interface ImportProblemDetail {
   code: string;
   sheet: string;
   row: number;
-  column: string | null;
+  /** As in ImportProblem; absent for a whole row or sheet. */
+  column?: string;
   mark?: string;
   value: string | number | boolean | null;
   message: string;

@@ -1,0 +1,30 @@
+import { Module } from '@nestjs/common';
+import { ActivityModule } from '../activity/activity.module';
+import { ChecksModule } from '../checks/checks.module';
+import { JobsModule } from '../jobs/jobs.module';
+import { RevisionsModule } from '../revisions/revisions.module';
+import { ImportCommitService } from './import-commit.service';
+import { ImportJobs } from './import-jobs';
+import { ImportSettings, parseImportSettings } from './import-settings';
+import { ImportsController } from './imports.controller';
+import { ImportsRepository } from './imports.repository';
+import { ImportsService } from './imports.service';
+import { TemplateService } from './template.service';
+import { UploadInterceptor } from './upload.interceptor';
+
+/** Schedule imports: template downloads, upload → checked draft → revision (inline or as a background job). */
+@Module({
+  imports: [ActivityModule, ChecksModule, RevisionsModule, JobsModule],
+  controllers: [ImportsController],
+  providers: [
+    { provide: ImportSettings, useFactory: () => parseImportSettings(process.env) },
+    ImportsRepository,
+    ImportsService,
+    ImportCommitService,
+    ImportJobs,
+    TemplateService,
+    UploadInterceptor,
+  ],
+  exports: [ImportsService, ImportCommitService, ImportSettings],
+})
+export class ImportsModule {}

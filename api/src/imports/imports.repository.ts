@@ -1,0 +1,133 @@
+import { Inject, Injectable } from '@nestjs/common';
+import type { Knex } from '@sagline/database';
+import type { ImportFileType, ImportPreview, ImportProblem, UnitSystem } from '@sagline/common/api-types';
+import type { ScheduleMember } from '@sagline/common/schedule';
+import { KNEX } from '../db/db.tokens';
+import type { Trx } from '../db/transaction';
+
+export interface ProjectContext {
+  id: number;
+  name: string;
+  unitSystem: UnitSystem;
+  levels: { id: number; name: string }[];
+  /** Team members by lower-case e-mail (reviewers are matched against them). */
+  team: Map<string, number>;
+}
+
+export interface DraftHeader {
+  id: string;
+  project_id: number;
+  uploaded_by: number;
+  file_name: string;
+  file_type: ImportFileType;
+  file_size: number;
+  unit_system: UnitSystem;
+  limit_set_id: number;
+  limit_set_version: number;
+  member_count: number;
+  load_row_count: number;
+  created_at: Date;
+  expires_at: Date;
+}
+
+export interface Draft extends DraftHeader {
+  file_bytes: Buffer;
+  members: ScheduleMember[];
+  problems: ImportProblem[];
+  preview: ImportPreview;
+}
+
+export interface NewDraft {
+  id: string;
+  projectId: number;
+  uploadedBy: number;
+  fileName: string;
+  fileType: ImportFileType;
+  fileBytes: Buffer;
+  unitSystem: UnitSystem;
+  limitSetId: number;
+  limitSetVersion: number;
+  members: readonly ScheduleMember[];
+  problems: readonly ImportProblem[];
+  preview: ImportPreview;
+  memberCount: number;
+  loadRowCount: number;
+  createdAt: Date;
+  expiresAt: Date;
+}
+
+const HEADER = ['id', 'project_id', 'uploaded_by', 'file_name', 'file_type', 'file_size', 'unit_system', 'limit_set_id', 'limit_set_version', 'member_count', 'load_row_count', 'created_at', 'expires_at'];
+
+@Injectable()
+export class ImportsRepository {
+  constructor(@Inject(KNEX) private readonly knex: Knex) {}
+
+  /** What an import needs to know about its project: unit system, levels, team e-mails. */
+  async projectContext(projectId: number): Promise<ProjectContext | undefined> {
+    const project = await this.knex('projects').where({ id: projectId }).first('id', 'name', 'unit_system');
+    if (!project) return undefined;
+    const [levels, team] = await Promise.all([
+      this.knex('levels').where({ project_id: projectId }).orderBy('position').select('id', 'name'),
+      this.knex('project_roles as r').join('users as u', 'u.id', 'r.user_id').where('r.project_id', projectId).select('u.id', 'u.email'),
+    ]);
+    return {
+      id: project.id,
+      name: project.name,
+      unitSystem: project.unit_system,
+      levels,
+      team: new Map(team.map((t: { id: number; email: string }) => [t.email.toLowerCase(), t.id])),
+    };
+  }
+
+  async insertDraft(d: NewDraft): Promise<void> {
+    await this.knex('import_drafts')
+      .insert({
+        id: d.id,
+        project_id: d.projectId,
+        uploaded_by: d.uploadedBy,
+        file_name: d.fileName,
+        file_type: d.fileType,
+        file_size: d.fileBytes.length,
+        file_bytes: d.fileBytes,
+        unit_system: d.unitSystem,
+        limit_set_id: d.limitSetId,
+        limit_set_version: d.limitSetVersion,
+        members: JSON.stringify(d.members),
+        problems: JSON.stringify(d.problems),
+        preview: JSON.stringify(d.preview),
+        member_count: d.memberCount,
+        load_row_count: d.loadRowCount,
+        created_at: d.createdAt,
+        expires_at: d.expiresAt,
+      });
+  }
+
+  /** A live (not expired) draft's header, without its file and members. */
+  findHeader(projectId: number, draftId: string): Promise<DraftHeader | undefined> {
+    return this.knex('import_drafts').where({ project_id: projectId, id: draftId }).where('expires_at', '>', this.knex.fn.now()).first(HEADER);
+  }
+
+  /** The whole draft. */
+  find(projectId: number, draftId: string): Promise<Draft | undefined> {
+    return this.knex('import_drafts').where({ project_id: projectId, id: draftId }).where('expires_at', '>', this.knex.fn.now()).first();
+  }
+
+  /**
+   * Takes the draft in the commit's transaction: deleted now, gone for good
+   * when the transaction commits, back if it rolls back. A second commit of
+   * the same draft waits for the first, then finds nothing.
+   */
+  async take(trx: Trx, projectId: number, draftId: string): Promise<boolean> {
+    const n = await trx('import_drafts').where({ project_id: projectId, id: draftId }).delete();
+    return n > 0;
+  }
+
+  async discard(projectId: number, draftId: string): Promise<boolean> {
+    return (await this.knex('import_drafts').where({ project_id: projectId, id: draftId }).delete()) > 0;
+  }
+
+  /** Drops drafts past their expiry. */
+  async deleteExpired(): Promise<number> {
+    return this.knex('import_drafts').where('expires_at', '<=', this.knex.fn.now()).delete();
+  }
+}

@@ -1,0 +1,88 @@
+import ExcelJS from 'exceljs';
+import type { ImportProblem } from '@sagline/common/api-types';
+import { findSheet, resolveCell, type CellValue, type SheetData } from '@sagline/common/schedule';
+import { ApiError } from '../common/api-error';
+
+/** The sheets a schedule parse needs, and what stopped the file from being read as a schedule. */
+export interface ReadSchedule {
+  members: SheetData | null;
+  loads: SheetData | null;
+  problems: ImportProblem[];
+}
+
+type MergeRange = { range: string; top: number; left: number; bottom: number; right: number };
+
+/**
+ * Opens an xlsx (already checked by the zip guard) with exceljs and hands
+ * over the Members and Loads sheets as plain cell values (formula cells keep
+ * `{ formula, result }`: exceljs never calculates, so `result` is what the
+ * writing program cached, and the schedule parser says so when there is none).
+ * Merged cells on those sheets are fatal: a merged block shows one value in
+ * several rows or columns, and which member it belongs to is a guess.
+ */
+export async function readWorkbook(bytes: Buffer, fileName: string): Promise<ReadSchedule> {
+  const workbook = new ExcelJS.Workbook();
+  try {
+    await workbook.xlsx.load(bytes as unknown as ArrayBuffer);
+  } catch (e) {
+    throw new ApiError(
+      'IMPORT_FILE_INVALID',
+      `"${fileName}" could not be read as an Excel workbook (${e instanceof Error ? e.message.slice(0, 200) : 'unreadable content'}). Open it in your spreadsheet program, save it as .xlsx and upload it again.`,
+    );
+  }
+  const names = workbook.worksheets.map((w) => w.name);
+  const problems: ImportProblem[] = [];
+  if (names.length === 0) {
+    problems.push(sheetProblem('NO_SHEETS', '(workbook)', `"${fileName}" has no sheets. Put the members on a sheet named "Members" (the template download has one).`));
+    return { members: null, loads: null, problems };
+  }
+  const membersName = findSheet(names, 'members');
+  if (membersName === undefined) {
+    problems.push(
+      sheetProblem(
+        'NO_MEMBERS_SHEET',
+        '(workbook)',
+        `No sheet of "${fileName}" is the member list: its sheets are ${names.map((n) => `"${n}"`).join(', ')}. Name the sheet with one row per member "Members" (or upload a workbook with that sheet only).`,
+      ),
+    );
+    return { members: null, loads: null, problems };
+  }
+  const loadsName = findSheet(names, 'loads');
+  const members = workbook.getWorksheet(membersName)!;
+  const loads = loadsName ? workbook.getWorksheet(loadsName)! : null;
+  for (const sheet of loads ? [members, loads] : [members]) problems.push(...mergeProblems(sheet));
+  return { members: sheetData(members), loads: loads ? sheetData(loads) : null, problems };
+}
+
+function sheetProblem(code: string, sheet: string, message: string): ImportProblem {
+  return { severity: 'error', code, sheet, row: 1, column: null, value: null, message };
+}
+
+function mergeProblems(sheet: ExcelJS.Worksheet): ImportProblem[] {
+  // exceljs keeps merges by their top-left address; `model.merges` would rebuild the whole sheet model.
+  const merges = Object.values((sheet as unknown as { _merges: Record<string, MergeRange> })._merges ?? {});
+  return merges
+    .sort((a, b) => a.top - b.top || a.left - b.left)
+    .map((m) => ({
+      severity: 'error' as const,
+      code: 'MERGED_CELLS',
+      sheet: sheet.name,
+      row: m.top,
+      column: m.range.split(':')[0].replace(/\d+$/, ''),
+      value: m.range,
+      message: `Cells ${m.range} of the ${sheet.name} sheet are merged. Unmerge them and fill in every cell (each member on its own row, each value in its own column), then upload again.`,
+    }));
+}
+
+/** Rows 1.. of a sheet as arrays of cell values (row 0 = the header), without trailing empty rows. */
+function sheetData(sheet: ExcelJS.Worksheet): SheetData {
+  const values = sheet.getSheetValues() as unknown as (CellValue[] | undefined)[];
+  const rows: CellValue[][] = [];
+  // values[r] is row r (1-based) with cells at [1..]; absent rows are holes.
+  for (let r = 1; r < values.length; r++) {
+    const row = values[r];
+    rows.push(row ? row.slice(1) : []);
+  }
+  while (rows.length > 0 && rows[rows.length - 1].every((cell) => resolveCell(cell).kind === 'blank')) rows.pop();
+  return { name: sheet.name, rows };
+}

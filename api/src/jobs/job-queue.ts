@@ -1,0 +1,99 @@
+import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
+import PgBoss from 'pg-boss';
+import { APP_CONFIG } from '../config/config.tokens';
+import type { AppConfig } from '../config/app-config';
+import { JOB_SETTINGS } from './jobs.tokens';
+import type { JobSettings } from './job-settings';
+
+/** What a handler gets: the job's id and data, and how many times it has been started before. */
+export interface JobContext<T> {
+  id: string;
+  data: T;
+  retryCount: number;
+}
+
+export interface SendOptions {
+  /** The job id (a UUID), so the caller can record it before the job runs. */
+  id: string;
+  /** Starts after the first one when a run fails or its process dies. */
+  retryLimit: number;
+  /** Seconds between a failure and the next start. */
+  retryDelay?: number;
+  /** A run still active after this is taken as dead (its process crashed) and started again. */
+  expireInSeconds: number;
+}
+
+type Handler = (job: JobContext<unknown>) => Promise<void>;
+
+/**
+ * The PostgreSQL-backed job queue (pg-boss, which creates and migrates its
+ * own `pgboss` schema on start). Jobs live in the database, so any api
+ * process with JOBS_WORKER=on picks up what any process queued, and a job
+ * whose process died is started again after its expiry. Handlers register in
+ * `onModuleInit` of their module; the worker starts when the app has booted.
+ */
+@Injectable()
+export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
+  private readonly logger = new Logger('jobs');
+  private readonly handlers = new Map<string, Handler>();
+  private boss: PgBoss | null = null;
+  private starting: Promise<PgBoss> | null = null;
+
+  constructor(
+    @Inject(APP_CONFIG) private readonly config: AppConfig,
+    @Inject(JOB_SETTINGS) private readonly settings: JobSettings,
+  ) {}
+
+  /** Registers the handler of a queue. A handler that throws is retried (SendOptions.retryLimit). */
+  register<T>(name: string, handler: (job: JobContext<T>) => Promise<void>): void {
+    this.handlers.set(name, handler as Handler);
+  }
+
+  async onApplicationBootstrap(): Promise<void> {
+    if (!this.settings.worker) return;
+    const boss = await this.started();
+    for (const [name, handler] of this.handlers) {
+      await boss.work<unknown>(name, { pollingIntervalSeconds: this.settings.pollSeconds, includeMetadata: true }, async (jobs) => {
+        for (const job of jobs) await handler({ id: job.id, data: job.data, retryCount: job.retryCount });
+      });
+    }
+  }
+
+  /** Queues a job; returns its id. */
+  async send(name: string, data: object, options: SendOptions): Promise<string> {
+    const boss = await this.started();
+    const id = await boss.send(name, data, {
+      id: options.id,
+      retryLimit: options.retryLimit,
+      retryDelay: options.retryDelay ?? 1,
+      expireInSeconds: options.expireInSeconds,
+    });
+    return id ?? options.id;
+  }
+
+  async onApplicationShutdown(): Promise<void> {
+    const boss = this.boss ?? (this.starting ? await this.starting.catch(() => null) : null);
+    if (!boss) return;
+    // Let a running job finish (its transaction commits or rolls back), then close pg-boss's pool.
+    await boss.stop({ graceful: true, wait: true, timeout: 30_000 });
+  }
+
+  private started(): Promise<PgBoss> {
+    this.starting ??= (async () => {
+      const boss = new PgBoss({
+        connectionString: this.config.databaseUrl,
+        max: 3,
+        application_name: 'sagline-jobs',
+        supervise: this.settings.worker,
+        maintenanceIntervalSeconds: this.settings.maintenanceSeconds,
+        schedule: false,
+      });
+      boss.on('error', (e: Error) => this.logger.error(`job queue: ${e.message}`));
+      await boss.start();
+      for (const name of this.handlers.keys()) await boss.createQueue(name);
+      this.boss = boss;
+      return boss;
+    })();
+    return this.starting;
+  }
+}

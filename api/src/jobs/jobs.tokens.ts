@@ -1,0 +1,2 @@
+/** Injection token of the JobSettings read at start. */
+export const JOB_SETTINGS = Symbol('JOB_SETTINGS');
