@@ -1,4 +1,5 @@
 import * as bandedModule from './banded-ldl';
+import { EngineError } from './engine-error';
 import * as hermiteModule from './hermite';
 import { MIN_SUPPORT_GAP, assertStable, assertSupportsApart } from './stability';
 import type { BeamInput, Load } from './types';
@@ -200,7 +201,19 @@ export class BeamSolution {
       }
     }
     const inv = this.invEI;
-    for (let i = 0; i < n * nl; i++) u[i] *= inv;
+    let bad = !(inv > 0 && inv < Infinity);
+    for (let i = 0; i < n * nl; i++) {
+      const v = u[i] * inv;
+      u[i] = v;
+      if (v - v !== 0) bad = true; // NaN or ±Infinity
+    }
+    if (bad) {
+      throw new EngineError(
+        'NOT_FINITE',
+        '',
+        `E·I = ${this.EI} N·m² with these loads gives results outside the range of numbers: check that length, E, I and the loads are in SI base units (m, Pa, m^4, N, N/m).`,
+      );
+    }
     return this;
   }
 

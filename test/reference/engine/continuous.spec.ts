@@ -10,8 +10,7 @@
  * the table prints.
  */
 import { lusolve, polynomialRoot } from 'mathjs';
-import { EI, expectRel, pin, solveMember } from './helpers';
-import type { Load } from '../../../common/src/engine';
+import { EI, expectRel, pin, solveMember, type CaselessLoad } from './helpers';
 
 type Poly = number[]; // coefficients, low to high
 
@@ -101,7 +100,7 @@ function spanExtreme(pieces: { from: number; to: number; y: Poly }[]): { x: numb
 function compare(spans: number[], loads: SpanLoads[]): { moments: number[]; extremes: { x: number; y: number }[] } {
   const supports = [0];
   spans.forEach((l) => supports.push(supports[supports.length - 1] + l));
-  const engineLoads: Omit<Load, 'case'>[] = [];
+  const engineLoads: CaselessLoad[] = [];
   loads.forEach((sl, i) => {
     const x0 = supports[i];
     if (sl.w) engineLoads.push({ kind: 'udl', x1: x0, x2: supports[i + 1], w: sl.w });

@@ -5,8 +5,11 @@ export const E = 2.05e11;
 export const I = 8.7e-5;
 export const EI = E * I;
 
+/** A load without its case (distributes over the union, unlike a plain Omit). */
+export type CaselessLoad = Load extends infer T ? (T extends Load ? Omit<T, 'case'> : never) : never;
+
 /** One-combination member: every load in case "D", combination "D". */
-export function solveMember(length: number, supports: Support[], loads: Omit<Load, 'case'>[], probes: number[] = []): BeamReport {
+export function solveMember(length: number, supports: Support[], loads: CaselessLoad[], probes: number[] = []): BeamReport {
   const input: BeamInput = {
     length,
     E,
