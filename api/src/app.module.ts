@@ -4,7 +4,9 @@ import { AuthModule } from './auth/auth.module';
 import type { AppConfig } from './config/app-config';
 import { ConfigModule } from './config/config.module';
 import { DbModule } from './db/db.module';
+import { ExportsModule } from './exports/exports.module';
 import { HealthModule } from './health/health.module';
+import { ImportsModule } from './imports/imports.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
 import { ProjectsModule } from './projects/projects.module';
@@ -28,6 +30,7 @@ export class AppModule {
         ActivityModule,
         MailModule,
         HealthModule,
+        ImportsModule, ExportsModule,
       ],
     };
   }
