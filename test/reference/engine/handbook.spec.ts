@@ -241,3 +241,25 @@ describe('propped: pin at x = 0, fixed at x = L', () => {
     expectRel(ex.x, (L * (L ** 2 + a ** 2)) / (3 * L ** 2 - a ** 2));
   });
 });
+
+describe('loads and supports very close to each other keep full precision', () => {
+  it.each([1e-3, 1e-6, 1e-9, 1e-13])('cantilever, point load %s × L from the tip: Pb²(3L − b)/6EI (AISC case 21)', (gap) => {
+    const b = L * (1 - gap);
+    const ex = extremeOf(solveMember(L, [fixed(0)], [{ kind: 'point', x: b, P }]));
+    expectRel(ex.deflection, (-P * b ** 2 * (3 * L - b)) / (6 * EI), 1e-12);
+  });
+
+  it.each([1e-4, 1e-7, 1e-10])('a tiny overhang (%s × l) beyond a pin under a tip load: Pa²(l + a)/3EI (AISC case 26)', (frac) => {
+    const l = 6.2;
+    const a = l + l * frac - l; // the overhang the member really has once l + a is rounded
+    const r = solveMember(l + a, [pin(0), pin(l)], [{ kind: 'point', x: l + a, P }]);
+    expectRel(extremeOf(r, 1).deflection, (-P * a ** 2 * (l + a)) / (3 * EI), 1e-9);
+    expectRel(extremeOf(r, 0).deflection, (P * a * l ** 2) / (9 * Math.sqrt(3) * EI), 1e-9);
+  });
+
+  it('a distributed load ending one rounding step short of the member end is still exact (AISC case 1)', () => {
+    const x2 = L - L * Number.EPSILON;
+    const ex = extremeOf(solveMember(L, [pin(0), pin(L)], [{ kind: 'udl', x1: 0, x2, w }]));
+    expectRel(ex.deflection, (-5 * w * L ** 4) / (384 * EI), 1e-12);
+  });
+});
