@@ -1,4 +1,4 @@
-import type { BeamInput, Check, Combination, Load, Support } from '../engine';
+import { checkBeam, type BeamInput, type Check, type CheckReport, type Combination, type Load, type Support } from '../engine';
 import { LimitError } from './limit-error';
 import type { LimitRule, LimitSet, MaterialId, RuleSource } from './types';
 
@@ -142,6 +142,32 @@ export function buildBeamInput(
   const input: BeamInput = { length: member.length, E: member.E, I: member.I, supports: member.supports, loads: member.loads, combinations, checks };
   if (member.probes) input.probes = member.probes;
   return input;
+}
+
+/** A check result with the rule (and so the source) it came from. */
+export interface SourcedCheckReport extends CheckReport {
+  rule: LimitRule;
+}
+
+/**
+ * Checks one member under a limit set in one call: buildBeamInput, then the
+ * engine's bulk fast path (checkBeam), each result paired with its rule so a
+ * verdict can show its source. Throws LimitError (category, length) or
+ * EngineError (mechanism, bad member) — validate untrusted members with
+ * parseBeamInput first.
+ */
+export function evaluateMember(
+  member: MemberModel,
+  limitSet: LimitSet,
+  category: string,
+  material?: MaterialId | null,
+  options: Omit<ChecksForOptions, 'cases' | 'length'> = {},
+): { input: BeamInput; checks: SourcedCheckReport[] } {
+  const cases = [...new Set(member.loads.map((l) => l.case))];
+  const pieces = checksFor(limitSet, category, material, { ...options, cases, length: member.length });
+  const input: BeamInput = { ...member, combinations: pieces.combinations, checks: pieces.checks };
+  const reports = checkBeam(input);
+  return { input, checks: reports.map((r, i) => ({ ...r, rule: pieces.rules[i] })) };
 }
 
 /** One line for screens and exports: "IBC 2021, Table 1604.3, floor members, L column (from memory)". */

@@ -14,6 +14,8 @@ export {
   checksFor,
   combinationName,
   describeSource,
+  evaluateMember,
+  type SourcedCheckReport,
   type ChecksForOptions,
   type MemberChecks,
   type MemberModel,

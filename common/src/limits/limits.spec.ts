@@ -11,6 +11,7 @@ import {
   checksFor,
   combinationName,
   describeSource,
+  evaluateMember,
   findPreset,
   validateLimitSet,
   type LimitSet,
@@ -184,6 +185,24 @@ describe('buildBeamInput', () => {
     );
     expect(input.combinations).toEqual({ '0.6W': { W: 0.6 } });
     expect(input.checks?.[0].plus).toBeCloseTo(0.00635, 15);
+  });
+});
+
+describe('evaluateMember', () => {
+  it('returns each check with the rule and source behind it (IBC 2021 Table 1604.3, footnote g for steel)', () => {
+    const L = 6;
+    const { checks } = evaluateMember(
+      { length: L, E: 200e9, I: 8e-5, supports: [{ x: 0, kind: 'pin' }, { x: L, kind: 'pin' }], loads: [{ case: 'D', kind: 'udl', x1: 0, x2: L, w: 4000 }, { case: 'L', kind: 'udl', x1: 0, x2: L, w: 6000 }] },
+      IBC_2021,
+      'floor',
+      'steel',
+    );
+    expect(checks.map((c) => [c.name, c.combination, c.rule.source.clause])).toEqual([
+      ['L/360 live', 'L', 'Table 1604.3, floor members, L column'],
+      ['L/240 total', 'L', 'Table 1604.3, footnote g'],
+    ]);
+    // 5wL⁴/384EI under L alone (AISC 15th Table 3-23 case 1)
+    expect(-checks[0].segments[0].deflection).toBeCloseTo((5 * 6000 * L ** 4) / (384 * 200e9 * 8e-5), 12);
   });
 });
 
