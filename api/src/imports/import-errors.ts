@@ -1,11 +1,6 @@
 import type { ImportProblem, ImportProblemDetail } from '@sagline/common/api-types';
 import { ApiError } from '../common/api-error';
 
-/** Why the import stopped, for the message: the first error with its place. */
-function where(p: ImportProblem): string {
-  return `${p.sheet} row ${p.row}${p.column ? `, ${p.column}` : ''}`;
-}
-
 /**
  * 422 IMPORT_ROWS_INVALID: the schedule has fatal problems, listed in
  * `details` (errors first, then warnings) with sheet, row, column, value and
@@ -17,7 +12,7 @@ export function rowsInvalid(problems: readonly ImportProblem[]): ApiError {
   const count = errors.some((p) => p.code === 'TOO_MANY_PROBLEMS') ? `more than ${errors.length - 1} errors` : errors.length === 1 ? '1 error' : `${errors.length} errors`;
   const message =
     `The schedule has ${count}, so nothing was stored. ` +
-    (first ? `The first: ${where(first)}: ${first.message} ` : '') +
+    (first ? `The first: ${/^\S+ row \d+/.test(first.message) ? '' : `${first.sheet} row ${first.row}: `}${first.message} ` : '') +
     'Fix the listed cells and upload the file again.';
   const details: ImportProblemDetail[] = problems.map((p) => {
     const d: ImportProblemDetail = { severity: p.severity, code: p.code, sheet: p.sheet, row: p.row, value: p.value, message: p.message };

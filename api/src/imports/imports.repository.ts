@@ -126,6 +126,20 @@ export class ImportsRepository {
     return (await this.knex('import_drafts').where({ project_id: projectId, id: draftId }).delete()) > 0;
   }
 
+  /** Ids by natural key, for the demo seed. */
+  async projectIdByNumber(number: string): Promise<number | undefined> {
+    return (await this.knex('projects').where({ number }).first('id'))?.id;
+  }
+
+  async userIdByEmail(email: string): Promise<number | undefined> {
+    return (await this.knex('users').where({ email: email.toLowerCase() }).first('id'))?.id;
+  }
+
+  async revisionCount(projectId: number): Promise<number> {
+    const row = await this.knex('revisions').where({ project_id: projectId }).count<{ n: string }[]>('* as n').first();
+    return Number(row?.n ?? 0);
+  }
+
   /** Drops drafts past their expiry. */
   async deleteExpired(): Promise<number> {
     return this.knex('import_drafts').where('expires_at', '<=', this.knex.fn.now()).delete();

@@ -129,11 +129,16 @@ export function readCentralDirectory(buf: Buffer, maxEntries = 10_000): ZipEntry
  */
 export function checkZip(buf: Buffer, limits: ZipLimits): ZipEntry[] {
   const entries = readCentralDirectory(buf, limits.maxEntries);
-  const mb = (n: number) => `${Math.round(n / 1024 / 1024)} MB`;
+  const size = (n: number) => (n >= 1024 * 1024 ? `${Math.round(n / 1024 / 1024)} MB` : `${Math.max(1, Math.round(n / 1024))} KB`);
   const tooLarge = (total: number) =>
     new ZipRejected(
       'too-large',
-      `The workbook would expand to ${total > limits.maxUnzippedBytes ? `more than ${mb(limits.maxUnzippedBytes)}` : mb(total)} when opened (from a ${mb(Math.max(buf.length, 1024 * 1024))} file), far more than any member schedule; it is refused as a possible zip bomb. Upload the schedule saved normally from a spreadsheet program, or split it.`,
+      `The workbook would expand to ${total > limits.maxUnzippedBytes ? `more than ${size(limits.maxUnzippedBytes)}` : size(total)} when opened (from a ${size(buf.length)} file), far more than any member schedule; it is refused as a possible zip bomb. Upload the schedule saved normally from a spreadsheet program, or split it.`,
+    );
+  const lying = (name: string) =>
+    new ZipRejected(
+      'too-large',
+      `Part "${name}" of the workbook expands to more than its table of contents says; the file is malformed or a zip bomb, and it is refused. Upload the schedule saved normally from a spreadsheet program.`,
     );
   let declared = 0;
   for (const entry of entries) {
@@ -163,7 +168,7 @@ export function checkZip(buf: Buffer, limits: ZipLimits): ZipEntry[] {
       // One byte over the declared size proves the declaration false without inflating the rest.
       out = inflateRawSync(buf.subarray(start, end), { maxOutputLength: Math.max(1, entry.uncompressedSize + 1) });
     } catch (e) {
-      if ((e as { code?: string }).code === 'ERR_BUFFER_TOO_LARGE') throw tooLarge(Math.max(declared, limits.maxUnzippedBytes + 1));
+      if ((e as { code?: string }).code === 'ERR_BUFFER_TOO_LARGE') throw lying(entry.name);
       throw damaged(`part "${entry.name}" cannot be decompressed`);
     }
     if (out.length !== entry.uncompressedSize) throw damaged(`part "${entry.name}" is shorter than its table of contents says`);

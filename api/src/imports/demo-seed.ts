@@ -1,0 +1,36 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import type { INestApplicationContext } from '@nestjs/common';
+import { DEMO_PEOPLE, DEMO_PROJECT } from '@sagline/database';
+import { ImportCommitService } from './import-commit.service';
+import { ImportsRepository } from './imports.repository';
+import { ImportsService } from './imports.service';
+
+/** The demo schedule (samples/README.md): 391 members of the invented Halvercote Yard. */
+export const DEMO_WORKBOOK = path.resolve(__dirname, '..', '..', '..', 'samples', 'halvercote-yard.xlsx');
+
+/**
+ * Puts the demo schedule in as revision 1 of the demo project, through the
+ * same code as an upload and a commit (parse, checks, one transaction), as
+ * uploaded by the demo engineer. Does nothing when the project is missing
+ * (run the database seed first) or already has a revision. Returns one line
+ * saying what it did.
+ */
+export async function seedDemoRevision(app: INestApplicationContext, workbook = DEMO_WORKBOOK): Promise<string> {
+  const repo = app.get(ImportsRepository);
+  const projectId = await repo.projectIdByNumber(DEMO_PROJECT.number);
+  if (projectId === undefined) return `no project ${DEMO_PROJECT.number} (run the database seed first): nothing imported`;
+  if ((await repo.revisionCount(projectId)) > 0) return `${DEMO_PROJECT.name} already has a revision: nothing imported`;
+  const engineer = DEMO_PEOPLE.find((p) => p.role === 'engineer')!;
+  const engineerId = await repo.userIdByEmail(engineer.email);
+  if (engineerId === undefined) return `no demo engineer ${engineer.email} (run the database seed first): nothing imported`;
+
+  const fileName = path.basename(workbook);
+  const preview = await app.get(ImportsService).preview(projectId, engineerId, { fileName, bytes: fs.readFileSync(workbook) });
+  const { revision } = await app.get(ImportCommitService).commit(projectId, preview.draftId, { label: 'Rev A, for checking', actorId: engineerId });
+  const warnings = preview.problems.length;
+  return (
+    `imported ${fileName} into ${DEMO_PROJECT.name} as revision ${revision.number} (uploaded by ${engineer.name}): ` +
+    `${revision.memberCount} members, ${revision.failCount} failing${warnings ? `, ${warnings} warnings` : ''}`
+  );
+}
