@@ -1,5 +1,6 @@
 import { isRouteErrorResponse, Link, useRouteError } from 'react-router-dom';
 import { Button, Result } from 'antd';
+import { MissingSupport } from '@/components/missing-support';
 import { paths } from './paths';
 
 /**
@@ -36,7 +37,7 @@ export function RouteError() {
 export function NotFoundResult() {
   return (
     <Result
-      status="404"
+      icon={<MissingSupport />}
       title="Page not found"
       subTitle="There is no screen at this address. It may have moved, or the link is incomplete."
       extra={

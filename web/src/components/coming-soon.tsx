@@ -1,4 +1,4 @@
-import { Card, Typography } from 'antd';
+import { Card, Flex, Tag, Typography } from 'antd';
 
 /**
  * An honest placeholder for a screen that is not built yet: what it will do,
@@ -7,16 +7,17 @@ import { Card, Typography } from 'antd';
 export function ComingSoon({ title, summary, points }: { title: string; summary: string; points: string[] }) {
   return (
     <Card>
-      <Typography.Title level={3} style={{ marginTop: 0 }}>
-        {title}
-      </Typography.Title>
-      <Typography.Paragraph type="secondary" style={{ marginBottom: 8 }}>
-        Not built yet. Coming here:
-      </Typography.Paragraph>
-      <Typography.Paragraph>{summary}</Typography.Paragraph>
-      <ul style={{ margin: 0, paddingInlineStart: 20 }}>
+      <Flex align="center" gap={12} style={{ marginBottom: 12 }}>
+        <Typography.Title level={3} style={{ margin: 0 }}>
+          {title}
+        </Typography.Title>
+        <Tag>Not built yet</Tag>
+      </Flex>
+      <Typography.Paragraph style={{ maxWidth: 720 }}>{summary}</Typography.Paragraph>
+      <Typography.Text type="secondary">What will be here:</Typography.Text>
+      <ul style={{ margin: '6px 0 0', paddingInlineStart: 20, maxWidth: 720 }}>
         {points.map((p) => (
-          <li key={p}>
+          <li key={p} style={{ marginBottom: 4 }}>
             <Typography.Text>{p}</Typography.Text>
           </li>
         ))}

@@ -14,16 +14,11 @@ export function SaglineMark({ size = 28, title }: { size?: number; title?: strin
       focusable="false"
     >
       <rect x="0" y="0" width="32" height="32" rx="7" fill="#1f6b72" />
-      {/* the deflected line, a shallow curve below the chord between supports */}
-      <path d="M6 13 Q16 20.5 26 13" fill="none" stroke="#ffffff" strokeWidth="2.4" strokeLinecap="round" />
-      {/* the undeflected chord, faint */}
-      <path d="M6 13 H26" stroke="#9fd0d2" strokeWidth="1" strokeDasharray="1.6 1.8" />
-      {/* two supports: pin on the left, roller on the right */}
-      <path d="M6 14.5 L3.2 20 H8.8 Z" fill="#cfe8e9" />
-      <path d="M26 14.5 L23.2 19 H28.8 Z" fill="#cfe8e9" />
-      <circle cx="24.4" cy="20.6" r="1" fill="#cfe8e9" />
-      <circle cx="27.6" cy="20.6" r="1" fill="#cfe8e9" />
-      <path d="M2.6 22.8 H9.4 M22.6 22.8 H29.4" stroke="#cfe8e9" strokeWidth="1.2" strokeLinecap="round" />
+      {/* the member, deflected: a shallow curve between its supports */}
+      <path d="M5 14 Q16 20 27 14" fill="none" stroke="#ffffff" strokeWidth="2.4" strokeLinecap="round" />
+      {/* two supports on their ground lines */}
+      <path d="M7 16.2 L3.8 21.4 H10.2 Z M25 16.2 L21.8 21.4 H28.2 Z" fill="#bfe0e1" />
+      <path d="M3 23.6 H11 M21 23.6 H29" stroke="#bfe0e1" strokeWidth="1.4" strokeLinecap="round" />
     </svg>
   );
 }

@@ -13,11 +13,11 @@ export function AppLayout() {
         <TopBar />
       </Layout.Header>
       <Layout.Content style={{ padding: '24px 24px 8px', width: '100%', maxWidth: 1280, margin: '0 auto' }}>
-        <main>
+        <div>
           <RegionBoundary region="this page" resetKey={pathname}>
             <Outlet />
           </RegionBoundary>
-        </main>
+        </div>
       </Layout.Content>
       <Layout.Footer style={{ textAlign: 'center' }}>
         <CautionNote />

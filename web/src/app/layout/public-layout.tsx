@@ -16,11 +16,11 @@ export function PublicLayout() {
             <SaglineMark size={40} />
             <span style={{ fontSize: 26, fontWeight: 600, letterSpacing: 0.2 }}>Sagline</span>
           </Link>
-          <main style={{ width: '100%', display: 'flex', justifyContent: 'center' }}>
+          <div style={{ width: '100%', display: 'flex', justifyContent: 'center' }}>
             <RegionBoundary region="this page" resetKey={pathname}>
               <Outlet />
             </RegionBoundary>
-          </main>
+          </div>
         </Flex>
       </Layout.Content>
       <Layout.Footer style={{ textAlign: 'center' }}>

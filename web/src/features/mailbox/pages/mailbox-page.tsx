@@ -62,7 +62,7 @@ export function MailboxPage() {
       {header}
       {messages.length === 0 ? (
         <Card>
-          <Empty description="Nothing sent yet. Invitations and notices the app sends appear here within a few seconds." />
+          <Empty image={Empty.PRESENTED_IMAGE_SIMPLE} description="Nothing sent yet. Invitations and notices the app sends appear here within a few seconds." />
         </Card>
       ) : (
         <Row gutter={[16, 16]}>

@@ -50,7 +50,7 @@ export function NewProjectForm({ onCreated, onCancel }: { onCreated: (p: Project
           { max: LIMITS.projectNameMax, message: `A project name has at most ${LIMITS.projectNameMax} characters.` },
         ]}
       >
-        <Input placeholder="Halvercote Yard" />
+        <Input placeholder="e.g. Halvercote Yard" />
       </Form.Item>
       <Form.Item
         label="Project number"
@@ -60,7 +60,7 @@ export function NewProjectForm({ onCreated, onCancel }: { onCreated: (p: Project
           { max: LIMITS.projectNumberMax, message: `A project number has at most ${LIMITS.projectNumberMax} characters.` },
         ]}
       >
-        <Input placeholder="HY-2041" style={{ maxWidth: 240 }} />
+        <Input placeholder="e.g. HY-2041" style={{ maxWidth: 240 }} />
       </Form.Item>
       <Form.Item label="Unit system" name="unitSystem" extra="Schedules are read and results shown in these units.">
         <Radio.Group

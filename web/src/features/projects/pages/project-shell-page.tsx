@@ -3,6 +3,7 @@ import { Button, Card, Flex, Result } from 'antd';
 import { isApiError } from '@/app/api-error';
 import { paths } from '@/app/paths';
 import { LoadError } from '@/components/load-error';
+import { MissingSupport } from '@/components/missing-support';
 import { PageLoading } from '@/components/page-loading';
 import { RegionBoundary } from '@/components/region-boundary';
 import { CurrentProjectProvider } from '@/lib/current-project';
@@ -22,7 +23,7 @@ export function ProjectShellPage() {
       return (
         <Card>
           <Result
-            status="404"
+            icon={<MissingSupport />}
             title="Project not found"
             subTitle="This project does not exist, or you are not on its team. Ask its manager for an invitation."
             extra={

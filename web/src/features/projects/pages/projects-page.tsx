@@ -37,6 +37,7 @@ export function ProjectsPage() {
         <Card styles={{ body: { padding: 0 } }}>
           {!isLoading && projects?.length === 0 ? (
             <Empty
+              image={Empty.PRESENTED_IMAGE_SIMPLE}
               style={{ padding: '48px 24px' }}
               description={
                 mayCreate
@@ -63,6 +64,7 @@ export function ProjectsPage() {
         footer={null}
         destroyOnHidden
         width={560}
+        styles={{ header: { marginBottom: 20 } }}
       >
         <NewProjectForm
           onCancel={() => setCreating(false)}

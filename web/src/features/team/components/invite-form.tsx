@@ -43,6 +43,7 @@ export function InviteForm({ projectId }: { projectId: number | string }) {
       <Row gutter={12} align="bottom">
         <Col xs={24} md={9}>
           <Form.Item
+            style={{ marginBottom: 12 }}
             label="E-mail"
             name="email"
             rules={[
@@ -56,6 +57,7 @@ export function InviteForm({ projectId }: { projectId: number | string }) {
         </Col>
         <Col xs={24} md={7}>
           <Form.Item
+            style={{ marginBottom: 12 }}
             label="Name (optional)"
             name="name"
             rules={[{ max: LIMITS.nameMax, message: `A name has at most ${LIMITS.nameMax} characters.` }]}
@@ -64,12 +66,12 @@ export function InviteForm({ projectId }: { projectId: number | string }) {
           </Form.Item>
         </Col>
         <Col xs={14} md={5}>
-          <Form.Item label="Role" name="role" rules={[{ required: true, message: 'Choose a role.' }]}>
+          <Form.Item style={{ marginBottom: 12 }} label="Role" name="role" rules={[{ required: true, message: 'Choose a role.' }]}>
             <RoleSelect aria-label="Role" />
           </Form.Item>
         </Col>
         <Col xs={10} md={3}>
-          <Form.Item label=" " colon={false}>
+          <Form.Item style={{ marginBottom: 12 }} label=" " colon={false}>
             <Button type="primary" htmlType="submit" loading={isMutating} block>
               Invite
             </Button>
