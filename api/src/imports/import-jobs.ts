@@ -37,10 +37,13 @@ export class ImportJobs implements OnModuleInit {
     if (!row || row.state === 'completed' || row.state === 'failed' || !row.draft_id) return;
     await this.jobs.started(row.id);
     let last = 0;
+    let lastStep = '';
     const onProgress = (fraction: number, step: string) => {
       const now = Date.now();
-      if (now - last < PROGRESS_EVERY_MS && fraction < 1) return;
+      // A new step is always shown; within a step, at most one write per PROGRESS_EVERY_MS.
+      if (step === lastStep && now - last < PROGRESS_EVERY_MS && fraction < 1) return;
       last = now;
+      lastStep = step;
       // Never awaited inside the commit: a slow progress write must not hold the transaction.
       this.jobs.progress(row.id, fraction, step).catch((e: unknown) => this.logger.warn(`progress of job ${row.id}: ${String(e)}`));
     };
