@@ -50,10 +50,18 @@ export class CombinedCurve {
       this.caseFactor = new Float64Array(nc * 2);
       this.caseNamed = new Uint8Array(nc * 2);
     }
-    for (let c = 0; c < nc; c++) {
-      const f = combination[sol.cases[c]];
-      this.caseNamed[c] = f === undefined ? 0 : 1;
-      this.caseFactor[c] = f === undefined ? 0 : f;
+    this.caseNamed.fill(0, 0, nc);
+    this.caseFactor.fill(0, 0, nc);
+    // for-in with a keyed read is V8's fast path; a lookup by each case name would be megamorphic.
+    for (const name in combination) {
+      const f = combination[name];
+      for (let c = 0; c < nc; c++) {
+        if (sol.cases[c] === name) {
+          this.caseNamed[c] = 1;
+          this.caseFactor[c] = f;
+          break;
+        }
+      }
     }
     const nl = sol.nLoads;
     if (this.loadFactor.length < nl) {

@@ -409,25 +409,46 @@ export class BeamSolution {
     u[o + nl] += this.segDir[g] * M0;
   }
 
-  /** Events of every part, sorted by segment then position (insertion sort: a few dozen at most). */
+  /**
+   * Events of every part, grouped by segment (counting sort), then sorted by
+   * position within each segment, openings before closings at the same point
+   * (insertion sort: a handful per segment).
+   */
   private buildEvents(): void {
     const np = this.nParts;
+    const ns = this.nSeg;
     const max = 2 * np;
     this.eventPart = growInt(this.eventPart, max);
     this.eventClose = growInt(this.eventClose, max);
     this.eventT = grow(this.eventT, max);
-    this.eventStart = growInt(this.eventStart, this.nSeg + 1);
+    const start = (this.eventStart = growInt(this.eventStart, ns + 2));
     const ep = this.eventPart;
     const ec = this.eventClose;
     const et = this.eventT;
-    let m = 0;
+    // Counting sort by segment: counts at start[g + 2], prefix sums make start[g + 1] the first
+    // slot of g; filling advances it to the end of g, which leaves start[g] = first slot of g.
+    start.fill(0, 0, ns + 2);
+    for (let p = 0; p < np; p++) start[this.partSeg[p] + 2] += this.partKind[p] === PART_LINE ? 2 : 1;
+    for (let g = 0; g < ns; g++) start[g + 2] += start[g + 1];
     for (let p = 0; p < np; p++) {
-      const seg = this.partSeg[p];
+      const g = this.partSeg[p];
       const adds = this.partKind[p] === PART_LINE ? 2 : 1;
       for (let c = 0; c < adds; c++) {
-        const t = c === 0 ? this.partT1[p] : this.partT2[p];
-        let j = m - 1;
-        while (j >= 0 && (this.partSeg[ep[j]] > seg || (this.partSeg[ep[j]] === seg && (et[j] > t || (et[j] === t && ec[j] > c))))) {
+        const slot = start[g + 1]++;
+        ep[slot] = p;
+        ec[slot] = c;
+        et[slot] = c === 0 ? this.partT1[p] : this.partT2[p];
+      }
+    }
+    for (let g = 0; g < ns; g++) {
+      const from = start[g];
+      const to = start[g + 1];
+      for (let i = from + 1; i < to; i++) {
+        const p = ep[i];
+        const c = ec[i];
+        const t = et[i];
+        let j = i - 1;
+        while (j >= from && (et[j] > t || (et[j] === t && ec[j] > c))) {
           ep[j + 1] = ep[j];
           ec[j + 1] = ec[j];
           et[j + 1] = et[j];
@@ -436,16 +457,9 @@ export class BeamSolution {
         ep[j + 1] = p;
         ec[j + 1] = c;
         et[j + 1] = t;
-        m++;
       }
     }
-    this.nEvents = m;
-    let e = 0;
-    for (let g = 0; g < this.nSeg; g++) {
-      this.eventStart[g] = e;
-      while (e < m && this.partSeg[ep[e]] === g) e++;
-    }
-    this.eventStart[this.nSeg] = m;
+    this.nEvents = start[ns];
   }
 
   /**
@@ -471,11 +485,12 @@ export class BeamSolution {
       const dir = this.segDir[g];
       for (let k = 0; k < nl; k++) out[k] = dir * t * u[o + nl + k];
     }
+    // Each part of g opens exactly one event of g.
     const inv = this.invEI;
-    for (let k = 0; k < nl; k++) {
-      for (let p = this.partStart[k]; p < this.partStart[k + 1]; p++) {
-        if (this.partSeg[p] === g) out[k] += inv * this.particular(p, t);
-      }
+    for (let e = this.eventStart[g]; e < this.eventStart[g + 1]; e++) {
+      if (this.eventClose[e] !== 0) continue;
+      const p = this.eventPart[e];
+      out[this.partLoad[p]] += inv * this.particular(p, t);
     }
   }
 
