@@ -6,7 +6,7 @@ export type HttpMethod = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
 export interface ApiFetchOptions {
   method?: HttpMethod;
-  /** Sent as JSON. */
+  /** Sent as JSON; a FormData (a file upload) is sent as multipart/form-data as it is. */
   body?: unknown;
   /**
    * Whether a 401 sends the person to the sign-in page. Off for the sign-in
@@ -40,7 +40,9 @@ const UNSAFE: ReadonlySet<HttpMethod> = new Set(['POST', 'PUT', 'PATCH', 'DELETE
 export async function apiFetch<T>(path: string, options: ApiFetchOptions = {}): Promise<T> {
   const method = options.method ?? 'GET';
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (options.body !== undefined) headers['Content-Type'] = 'application/json';
+  // The browser writes a multipart body's Content-Type itself (it holds the boundary).
+  const isForm = typeof FormData !== 'undefined' && options.body instanceof FormData;
+  if (options.body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
   if (UNSAFE.has(method)) {
     const token = readCsrfToken();
     if (token) headers[CSRF_HEADER] = token;
@@ -51,7 +53,7 @@ export async function apiFetch<T>(path: string, options: ApiFetchOptions = {}): 
     response = await fetch(path, {
       method,
       headers,
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      body: options.body === undefined ? undefined : isForm ? (options.body as FormData) : JSON.stringify(options.body),
       credentials: 'same-origin',
       signal: options.signal,
     });

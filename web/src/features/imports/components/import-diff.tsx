@@ -1,0 +1,177 @@
+import { Alert, Flex, Table, Tabs, Typography } from 'antd';
+import type { ImportChangedMember, ImportDiff as Diff, ImportMemberRef, ImportVerdictFlip, Verdict } from '@sagline/common/api-types';
+import { Utilisation, VerdictTag } from './verdict-tag';
+
+const VERDICT_WORD: Record<Verdict, string> = { pass: 'Pass', fail: 'Fail' };
+
+/** Pass → fail reads as a warning (red), fail → pass as good news (green). */
+export function FlipText({ from, to }: { from: Verdict; to: Verdict }) {
+  return (
+    <Typography.Text type={to === 'fail' ? 'danger' : 'success'} strong>
+      {VERDICT_WORD[from]} → {VERDICT_WORD[to]}
+      {to === 'fail' ? ' (now fails)' : ' (now passes)'}
+    </Typography.Text>
+  );
+}
+
+function MemberTable({ members, label, empty }: { members: ImportMemberRef[]; label: string; empty: string }) {
+  return (
+    <Table<ImportMemberRef>
+      aria-label={label}
+      size="small"
+      rowKey="mark"
+      dataSource={members}
+      pagination={members.length > 50 ? { pageSize: 50 } : false}
+      locale={{ emptyText: empty }}
+      columns={[
+        { title: 'Mark', dataIndex: 'mark', width: 120 },
+        { title: 'Level', dataIndex: 'level', width: 90 },
+        { title: 'Category', dataIndex: 'category' },
+        { title: 'Verdict', dataIndex: 'verdict', width: 110, render: (_v, m) => <VerdictTag verdict={m.verdict} /> },
+        {
+          title: 'Utilisation',
+          dataIndex: 'maxUtilization',
+          width: 110,
+          align: 'right',
+          render: (_v, m) => <Utilisation value={m.maxUtilization} />,
+        },
+      ]}
+    />
+  );
+}
+
+function ChangedTable({ members }: { members: ImportChangedMember[] }) {
+  return (
+    <Table<ImportChangedMember>
+      aria-label="Changed members"
+      size="small"
+      rowKey="mark"
+      dataSource={members}
+      pagination={members.length > 50 ? { pageSize: 50 } : false}
+      locale={{ emptyText: 'No member changed.' }}
+      columns={[
+        { title: 'Mark', dataIndex: 'mark', width: 120 },
+        { title: 'Level', dataIndex: 'level', width: 90 },
+        {
+          title: 'What changed',
+          key: 'changes',
+          render: (_v, m) => (
+            <Flex vertical gap={2}>
+              {m.changes.map((c) => (
+                <span key={c.field}>
+                  <Typography.Text strong>{c.label}</Typography.Text>: {c.beforeText || '(empty)'} →{' '}
+                  {c.afterText || '(empty)'}
+                </span>
+              ))}
+            </Flex>
+          ),
+        },
+        {
+          title: 'Verdict',
+          key: 'verdict',
+          width: 170,
+          render: (_v, m) => (
+            <>
+              <VerdictTag verdict={m.verdictBefore} /> → <VerdictTag verdict={m.verdict} />
+            </>
+          ),
+        },
+      ]}
+    />
+  );
+}
+
+function FlipsTable({ flips }: { flips: ImportVerdictFlip[] }) {
+  return (
+    <Table<ImportVerdictFlip>
+      aria-label="Verdicts that flip"
+      size="small"
+      rowKey="mark"
+      dataSource={flips}
+      pagination={flips.length > 50 ? { pageSize: 50 } : false}
+      locale={{ emptyText: 'No verdict flips.' }}
+      columns={[
+        { title: 'Mark', dataIndex: 'mark', width: 120 },
+        { title: 'Level', dataIndex: 'level', width: 90 },
+        { title: 'Verdict', key: 'flip', width: 220, render: (_v, f) => <FlipText from={f.from} to={f.to} /> },
+        {
+          title: 'Governing check',
+          dataIndex: 'governingCheck',
+          render: (_v, f) => f.governingCheck ?? <Typography.Text type="secondary">—</Typography.Text>,
+        },
+        {
+          title: 'Utilisation',
+          dataIndex: 'maxUtilization',
+          width: 110,
+          align: 'right',
+          render: (_v, f) => <Utilisation value={f.maxUtilization} />,
+        },
+      ]}
+    />
+  );
+}
+
+/**
+ * What committing the draft would change against the latest revision:
+ * added, removed and changed members (field by field) and the verdicts
+ * that flip. Opens on the flips when there are any: they are what a
+ * checker will ask about.
+ */
+export function ImportDiff({ diff }: { diff: Diff }) {
+  const toFail = diff.flips.filter((f) => f.to === 'fail').length;
+  const toPass = diff.flips.length - toFail;
+  const nothing = diff.added.length + diff.removed.length + diff.changed.length === 0;
+  const first = !diff.against;
+
+  return (
+    <Flex vertical gap={8}>
+      <Typography.Text>
+        {first ? (
+          'This is the first revision of the project: every member is new.'
+        ) : (
+          <>
+            Against revision {diff.against!.number}
+            {diff.against!.label ? ` (${diff.against!.label})` : ''}: {diff.added.length} added, {diff.removed.length}{' '}
+            removed, {diff.changed.length} changed, {diff.unchanged} unchanged.{' '}
+            {diff.flips.length > 0 && (
+              <Typography.Text type={toFail > 0 ? 'danger' : 'success'}>
+                {toFail > 0 && `${toFail} now ${toFail === 1 ? 'fails' : 'fail'}`}
+                {toFail > 0 && toPass > 0 && ', '}
+                {toPass > 0 && `${toPass} now ${toPass === 1 ? 'passes' : 'pass'}`}.
+              </Typography.Text>
+            )}
+          </>
+        )}
+      </Typography.Text>
+      {!first && nothing && (
+        <Alert
+          type="info"
+          showIcon
+          title={`No changes: every member is the same as in revision ${diff.against!.number}.`}
+          description="Committing still keeps this file as a new revision."
+        />
+      )}
+      <Tabs
+        defaultActiveKey={diff.flips.length > 0 ? 'flips' : first ? 'added' : diff.changed.length > 0 ? 'changed' : 'added'}
+        items={[
+          {
+            key: 'added',
+            label: `Added (${diff.added.length})`,
+            children: <MemberTable members={diff.added} label="Added members" empty="No member added." />,
+          },
+          {
+            key: 'removed',
+            label: `Removed (${diff.removed.length})`,
+            children: <MemberTable members={diff.removed} label="Removed members" empty="No member removed." />,
+          },
+          { key: 'changed', label: `Changed (${diff.changed.length})`, children: <ChangedTable members={diff.changed} /> },
+          {
+            key: 'flips',
+            label: `Verdicts that flip (${diff.flips.length})`,
+            children: <FlipsTable flips={diff.flips} />,
+          },
+        ]}
+      />
+    </Flex>
+  );
+}
