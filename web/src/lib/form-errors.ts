@@ -16,7 +16,9 @@ export function showFieldErrors<T extends object>(
   for (const d of error.details) {
     const name = d.path?.replace(/^body\./, '');
     if (!name || !fields.includes(name as keyof T & string)) continue;
-    byField.set(name, [...(byField.get(name) ?? []), d.message]);
+    // Details are often fragments after the field path ("is too short").
+    const text = d.message.charAt(0).toUpperCase() + d.message.slice(1);
+    byField.set(name, [...(byField.get(name) ?? []), text]);
   }
   if (byField.size === 0) return false;
   form.setFields(

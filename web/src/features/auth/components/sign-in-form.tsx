@@ -5,12 +5,14 @@ import { errorMessage, isApiError } from '@/app/api-error';
 import { minutesText } from '@/lib/format';
 import { useSignIn } from '../api/sign-in';
 
-/** What to tell a person whose sign-in was refused. */
+/**
+ * What to tell a person whose sign-in was refused. The server's message says
+ * what happened; for a rate limit it should say how long to wait, and when it
+ * does not, the Retry-After header does.
+ */
 export function signInProblem(error: unknown): string {
-  if (isApiError(error) && error.code === 'RATE_LIMITED') {
-    return error.retryAfterSeconds !== undefined
-      ? `Too many sign-in attempts. Try again in ${minutesText(error.retryAfterSeconds)}.`
-      : error.message;
+  if (isApiError(error) && error.code === 'RATE_LIMITED' && error.retryAfterSeconds !== undefined && !/\d/.test(error.message)) {
+    return `${error.message} Try again in ${minutesText(error.retryAfterSeconds)}.`;
   }
   return errorMessage(error);
 }

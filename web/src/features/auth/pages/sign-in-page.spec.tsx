@@ -47,6 +47,16 @@ describe('Sign in', () => {
     expect(await screen.findByText('Too many sign-in attempts. Try again in 14 minutes.')).toBeInTheDocument();
   });
 
+  it("keeps the server's own wait time when its message gives one", async () => {
+    const said = 'Too many failed sign-ins for this e-mail from your address. Wait about 12 minutes and try again.';
+    stubFetch({ ...signedOut, 'POST /api/auth/sign-in': apiError(429, 'RATE_LIMITED', said, { headers: { 'Retry-After': '700' } }) });
+    const { user } = renderApp('/sign-in');
+    await user.type(await screen.findByLabelText('E-mail'), manager.email);
+    await user.type(screen.getByLabelText('Password'), 'whatever-it-is');
+    await user.click(screen.getByRole('button', { name: 'Sign in' }));
+    expect(await screen.findByText(said)).toBeInTheDocument();
+  });
+
   it('when a session ends, sends the person to sign in and back to where they were', async () => {
     let signedIn = true;
     const api = stubFetch({
