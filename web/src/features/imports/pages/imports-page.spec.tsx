@@ -18,8 +18,16 @@ function importsApi(me: Me, myRole: Parameters<typeof halvercote>[0], more: Stub
   });
 }
 
+/**
+ * A chosen file. Node's File, not jsdom's: the test window's FormData is
+ * Node's (testing/jsdom-environment.cjs) and takes only its own Blobs, as a
+ * browser's FormData takes the browser's files.
+ */
+const NodeFile = jest.requireActual<{ File: typeof File }>('node:buffer').File;
 const xlsx = (name = 'halvercote-yard-rev-b.xlsx') =>
-  new File(['PK fake workbook bytes'], name, { type: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet' });
+  new NodeFile(['PK fake workbook bytes'], name, {
+    type: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+  });
 
 /** The file input inside the drop zone. */
 async function fileInput(): Promise<HTMLInputElement> {
