@@ -6,7 +6,10 @@ async function tables(knex: Knex): Promise<string[]> {
   return rows.map((r) => r.tablename).filter((n) => !n.startsWith('knex_migrations'));
 }
 
-const SCHEMA = ['activity', 'invitations', 'levels', 'outbound_mail', 'project_roles', 'projects', 'rate_limit_hits', 'sessions', 'users'];
+const SCHEMA = [
+  'activity', 'import_drafts', 'import_jobs', 'invitations', 'levels', 'limit_sets', 'member_loads', 'members',
+  'outbound_mail', 'project_roles', 'projects', 'rate_limit_hits', 'results', 'revisions', 'sessions', 'users',
+];
 
 describe('migrations', () => {
   let db: { url: string; drop(): Promise<void> };

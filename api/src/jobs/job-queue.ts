@@ -38,6 +38,7 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
   private readonly handlers = new Map<string, Handler>();
   private boss: PgBoss | null = null;
   private starting: Promise<PgBoss> | null = null;
+  private closed = false;
 
   constructor(
     @Inject(APP_CONFIG) private readonly config: AppConfig,
@@ -51,6 +52,19 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
 
   async onApplicationBootstrap(): Promise<void> {
     if (!this.settings.worker) return;
+    // The API must come up even when the database is not reachable yet (health
+    // then answers 503); the worker keeps trying in the background.
+    this.startWorker().catch((e: Error) => this.retryWorker(e));
+  }
+
+  private retryWorker(e: Error): void {
+    this.logger.error(`job queue could not start (${e.message}); retrying in 10 s`);
+    this.starting = null;
+    if (this.closed) return;
+    setTimeout(() => this.startWorker().catch((err: Error) => this.retryWorker(err)), 10_000).unref();
+  }
+
+  private async startWorker(): Promise<void> {
     const boss = await this.started();
     for (const [name, handler] of this.handlers) {
       await boss.work<unknown>(name, { pollingIntervalSeconds: this.settings.pollSeconds, includeMetadata: true }, async (jobs) => {
@@ -72,6 +86,7 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
   }
 
   async onApplicationShutdown(): Promise<void> {
+    this.closed = true;
     const boss = this.boss ?? (this.starting ? await this.starting.catch(() => null) : null);
     if (!boss) return;
     // Let a running job finish (its transaction commits or rolls back), then close pg-boss's pool.
