@@ -3,3 +3,5 @@ export * from './constraints';
 export * from './auth';
 export * from './projects';
 export * from './imports';
+export * from './flags';
+export * from './members';
