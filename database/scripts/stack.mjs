@@ -41,7 +41,7 @@ export function ensureDebianPackage(probe, pkg) {
 export function build() {
   log('building common, database, api (tsc -b) and the web app (vite build)…');
   run('npx', ['tsc', '-b', 'common', 'database', 'api']);
-  run('npm', ['run', '-s', 'build', '-w', '@sagline/web']);
+  run('npm', ['run', '-s', 'build', '-w', '@sagline/web', '--', '--logLevel', 'warn']);
 }
 
 /** Resolves when something listens on host:port, rejects after `timeoutMs`. */
