@@ -16,7 +16,7 @@ import { csvOf, floorBeams } from './fixtures/schedule-files';
  */
 const ENV: Record<string, string> = {
   IMPORT_JOB_THRESHOLD: '20',
-  IMPORT_JOB_EXPIRE_SECONDS: '5',
+  IMPORT_JOB_EXPIRE_SECONDS: '8',
   JOBS_POLL_SECONDS: '0.5',
   JOBS_MAINTENANCE_SECONDS: '1',
   JOBS_WORKER: 'on',
@@ -148,7 +148,10 @@ describe('imports: background commits', () => {
     await t.restart();
     eng.rebind(t.http);
     const done = await waitFor(jobId, (s) => s.state === 'completed' || s.state === 'failed', 90);
-    expect(done).toMatchObject({ state: 'completed', attempts: 2, progress: 1, result: { revision: { number: 2, memberCount: 5000, failCount: 500 } } });
+    expect(done).toMatchObject({ state: 'completed', progress: 1, result: { revision: { number: 2, memberCount: 5000, failCount: 500 } } });
+    // At least the killed start and the one that finished (on a slow machine a start that outlives the
+    // short test expiry is started once more; it then finds the revision already written and keeps it).
+    expect(done.attempts).toBeGreaterThanOrEqual(2);
     expect(await importCounts(t)).toEqual({
       ...before,
       revisions: before.revisions + 1,

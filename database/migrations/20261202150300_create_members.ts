@@ -6,8 +6,8 @@ import type { Knex } from 'knex';
  * check, largest utilisation, verdict, the I at which every check passes) so
  * the Members screen filters and sorts without touching `results`.
  * Marks are unique per revision ignoring case (the parser matches them so).
- * Indexes: the Members screen filters one revision by verdict, level,
- * reviewer and category, and sorts by utilisation.
+ * Indexes: the Members screen filters one revision by verdict, level and
+ * reviewer (each index costs every import a write per member, so only these).
  */
 export async function up(knex: Knex): Promise<void> {
   if (await knex.schema.hasTable('members')) return;
@@ -47,8 +47,6 @@ export async function up(knex: Knex): Promise<void> {
   await knex.raw('create index if not exists members_revision_verdict_index on members (revision_id, verdict)');
   await knex.raw('create index if not exists members_revision_level_index on members (revision_id, level_id)');
   await knex.raw('create index if not exists members_revision_reviewer_index on members (revision_id, reviewer_id)');
-  await knex.raw('create index if not exists members_revision_category_index on members (revision_id, category)');
-  await knex.raw('create index if not exists members_revision_utilization_index on members (revision_id, max_utilization desc nulls last)');
 }
 
 export async function down(knex: Knex): Promise<void> {

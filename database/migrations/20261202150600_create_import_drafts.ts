@@ -2,8 +2,10 @@ import type { Knex } from 'knex';
 
 /**
  * A validated upload waiting for its commit: the file, the parsed members
- * (SI, as common/src/schedule ScheduleMember JSON), the warnings and the
- * preview shown to the engineer. Written only when the upload had no fatal
+ * (SI, common/src/schedule ScheduleMember[] as gzip-compressed JSON: a
+ * 10,000-member schedule is 5 MB of JSON, which as jsonb costs more to write
+ * than the whole rest of the draft, and is only ever read back whole), the
+ * warnings and the counts of the preview shown to the engineer. Written only when the upload had no fatal
  * problem; deleted by its commit (in the commit's transaction) or after
  * `expires_at`. `limit_set_version` is the version of the project's limit set
  * the preview's verdicts came from: a commit after the set changed is refused.
@@ -22,9 +24,10 @@ export async function up(knex: Knex): Promise<void> {
     t.text('unit_system').notNullable();
     t.integer('limit_set_id').notNullable().references('id').inTable('limit_sets').onDelete('CASCADE');
     t.integer('limit_set_version').notNullable();
-    t.jsonb('members').notNullable();
+    t.binary('members_gz').notNullable();
     t.jsonb('problems').notNullable();
-    t.jsonb('preview').notNullable();
+    // Counts of the preview's diff and verdicts (the member lists are recomputed on commit).
+    t.jsonb('summary').notNullable();
     t.integer('member_count').notNullable();
     t.integer('load_row_count').notNullable();
     t.timestamp('created_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());

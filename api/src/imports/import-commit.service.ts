@@ -7,6 +7,7 @@ import { ApiError, notFound } from '../common/api-error';
 import { TransactionRunner } from '../db/transaction';
 import { toRevisionSummary } from '../revisions/revisions.mapper';
 import { RevisionsRepository, type MemberToWrite, type StoredDiff } from '../revisions/revisions.repository';
+import { DraftCache } from './draft-cache';
 import { rowsInvalid } from './import-errors';
 import { ImportsRepository } from './imports.repository';
 import { previewDiff, withVerdicts } from './preview-diff';
@@ -44,6 +45,7 @@ export class ImportCommitService {
     private readonly limitSets: LimitSetsService,
     private readonly activity: ActivityService,
     private readonly tx: TransactionRunner,
+    private readonly cache: DraftCache,
   ) {}
 
   async commit(projectId: number, draftId: string, options: CommitOptions): Promise<CommitImportResponse> {
@@ -59,15 +61,19 @@ export class ImportCommitService {
     const context = await this.drafts.projectContext(projectId);
     if (!context) throw notFound(`Project ${projectId} was not found, or you are not on its team.`);
 
-    const total = draft.members.length;
+    const cached = this.cache.take(draftId, draft.limit_set_id, draft.limit_set_version);
+    const members = cached?.members ?? (await this.drafts.members(draftId));
+    const total = members.length;
     progress(0.05, 'Checking members');
-    const outcome = analyzeMembers(draft.members, set, {
-      onProgress: (done) => progress(0.05 + (0.25 * done) / Math.max(1, total), 'Checking members'),
-    });
+    const outcome =
+      cached?.outcome ??
+      analyzeMembers(members, set, {
+        onProgress: (done) => progress(0.05 + (0.25 * done) / Math.max(1, total), 'Checking members'),
+      });
     if (outcome.problems.length) throw rowsInvalid(outcome.problems);
 
     const levelIds = new Map(context.levels.map((l) => [l.name.toLowerCase(), l.id]));
-    const toWrite: MemberToWrite[] = draft.members.map((member, i) => ({
+    const toWrite: MemberToWrite[] = members.map((member, i) => ({
       member,
       levelId: levelIds.get(member.level.toLowerCase()) ?? null,
       reviewerId: member.reviewerEmail ? (context.team.get(member.reviewerEmail.toLowerCase()) ?? null) : null,
@@ -87,7 +93,7 @@ export class ImportCommitService {
       progress(0.32, 'Comparing with the previous revision');
       const latest = await this.revisions.latest(projectId, trx);
       const previous = latest ? await this.revisions.membersOf(latest.id, trx) : [];
-      const diff = previewDiff(latest ?? null, previous, withVerdicts(draft.members, outcome.analyses), context.unitSystem);
+      const diff = previewDiff(latest ?? null, previous, withVerdicts(members, outcome.analyses), context.unitSystem);
       const stored: StoredDiff = {
         against: latest ? { id: latest.id, number: latest.number } : null,
         added: diff.added.length,

@@ -3,6 +3,7 @@ import { ActivityModule } from '../activity/activity.module';
 import { ChecksModule } from '../checks/checks.module';
 import { JobsModule } from '../jobs/jobs.module';
 import { RevisionsModule } from '../revisions/revisions.module';
+import { DraftCache } from './draft-cache';
 import { ImportCommitService } from './import-commit.service';
 import { ImportJobs } from './import-jobs';
 import { ImportSettings, parseImportSettings } from './import-settings';
@@ -19,6 +20,7 @@ import { UploadInterceptor } from './upload.interceptor';
   providers: [
     { provide: ImportSettings, useFactory: () => parseImportSettings(process.env) },
     ImportsRepository,
+    DraftCache,
     ImportsService,
     ImportCommitService,
     ImportJobs,

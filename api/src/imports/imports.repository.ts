@@ -1,6 +1,7 @@
+import { gunzipSync, gzipSync } from 'node:zlib';
 import { Inject, Injectable } from '@nestjs/common';
 import type { Knex } from '@sagline/database';
-import type { ImportFileType, ImportPreview, ImportProblem, UnitSystem } from '@sagline/common/api-types';
+import type { ImportFileType, ImportProblem, UnitSystem } from '@sagline/common/api-types';
 import type { ScheduleMember } from '@sagline/common/schedule';
 import { KNEX } from '../db/db.tokens';
 import type { Trx } from '../db/transaction';
@@ -30,11 +31,22 @@ export interface DraftHeader {
   expires_at: Date;
 }
 
+/** What the preview showed, in counts (kept with the draft for the record). */
+export interface DraftSummary {
+  pass: number;
+  fail: number;
+  unchecked: number;
+  against: number | null;
+  added: number;
+  removed: number;
+  changed: number;
+  flips: number;
+}
+
 export interface Draft extends DraftHeader {
   file_bytes: Buffer;
-  members: ScheduleMember[];
   problems: ImportProblem[];
-  preview: ImportPreview;
+  summary: DraftSummary;
 }
 
 export interface NewDraft {
@@ -49,7 +61,7 @@ export interface NewDraft {
   limitSetVersion: number;
   members: readonly ScheduleMember[];
   problems: readonly ImportProblem[];
-  preview: ImportPreview;
+  summary: DraftSummary;
   memberCount: number;
   loadRowCount: number;
   createdAt: Date;
@@ -92,9 +104,10 @@ export class ImportsRepository {
         unit_system: d.unitSystem,
         limit_set_id: d.limitSetId,
         limit_set_version: d.limitSetVersion,
-        members: JSON.stringify(d.members),
+        // Fastest level: the point is to keep PostgreSQL from parsing and compressing 5 MB of JSON.
+        members_gz: gzipSync(JSON.stringify(d.members), { level: 1 }),
         problems: JSON.stringify(d.problems),
-        preview: JSON.stringify(d.preview),
+        summary: JSON.stringify(d.summary),
         member_count: d.memberCount,
         load_row_count: d.loadRowCount,
         created_at: d.createdAt,
@@ -107,9 +120,18 @@ export class ImportsRepository {
     return this.knex('import_drafts').where({ project_id: projectId, id: draftId }).where('expires_at', '>', this.knex.fn.now()).first(HEADER);
   }
 
-  /** The whole draft. */
+  /** The draft without its members (see `members`). */
   find(projectId: number, draftId: string): Promise<Draft | undefined> {
-    return this.knex('import_drafts').where({ project_id: projectId, id: draftId }).where('expires_at', '>', this.knex.fn.now()).first();
+    return this.knex('import_drafts')
+      .where({ project_id: projectId, id: draftId })
+      .where('expires_at', '>', this.knex.fn.now())
+      .first([...HEADER, 'file_bytes', 'problems', 'summary']);
+  }
+
+  /** The parsed members of a draft (SI), in sheet order. */
+  async members(draftId: string): Promise<ScheduleMember[]> {
+    const row = await this.knex('import_drafts').where({ id: draftId }).first('members_gz');
+    return row ? (JSON.parse(gunzipSync(row.members_gz).toString('utf8')) as ScheduleMember[]) : [];
   }
 
   /**

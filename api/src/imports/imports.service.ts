@@ -7,6 +7,7 @@ import { notFound } from '../common/api-error';
 import { JobQueue } from '../jobs/job-queue';
 import { JobsRepository, type ImportJobRow } from '../jobs/jobs.repository';
 import { RevisionsRepository } from '../revisions/revisions.repository';
+import { DraftCache } from './draft-cache';
 import { ImportCommitService } from './import-commit.service';
 import { rowsInvalid } from './import-errors';
 import { ImportSettings } from './import-settings';
@@ -42,6 +43,7 @@ export class ImportsService {
     private readonly queue: JobQueue,
     private readonly jobs: JobsRepository,
     private readonly settings: ImportSettings,
+    private readonly cache: DraftCache,
   ) {}
 
   /**
@@ -100,12 +102,20 @@ export class ImportsService {
       limitSetVersion: limitRow.version,
       members: read.members,
       problems: read.problems,
-      preview,
+      summary: {
+        ...preview.summary,
+        against: latest?.id ?? null,
+        added: diff.added.length,
+        removed: diff.removed.length,
+        changed: diff.changed.length,
+        flips: diff.flips.length,
+      },
       memberCount: read.members.length,
       loadRowCount: read.loadRows,
       createdAt,
       expiresAt,
     });
+    this.cache.put(preview.draftId, { members: read.members, outcome, limitSetId: limitRow.id, limitSetVersion: limitRow.version });
     return preview;
   }
 
