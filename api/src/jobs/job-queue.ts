@@ -104,8 +104,14 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
         schedule: false,
       });
       boss.on('error', (e: Error) => this.logger.error(`job queue: ${e.message}`));
-      await boss.start();
-      for (const name of this.handlers.keys()) await boss.createQueue(name);
+      try {
+        await boss.start();
+        for (const name of this.handlers.keys()) await boss.createQueue(name);
+      } catch (e) {
+        // A failed start (database unreachable) must not leave its pool behind; the next attempt makes a new one.
+        await boss.stop({ graceful: false, wait: false }).catch(() => undefined);
+        throw e;
+      }
       this.boss = boss;
       return boss;
     })();
