@@ -120,7 +120,7 @@ function summary(input: BeamInput, report: BeamReport, system: UnitSystemId, cur
   );
   if (curves.factor !== null) parts.push(`elastic curves drawn with deflection × ${formatFactor(curves.factor)}`);
   for (const c of curves.curves) {
-    const marks = curves.extremes.filter((m) => m.combination === c.combination);
+    const marks = curves.extremes.filter((m) => m.combination === c.combination).sort((a, b) => a.segment - b.segment);
     const segs = report.combinations[c.combination]?.segments ?? [];
     if (!marks.length) continue;
     parts.push(
