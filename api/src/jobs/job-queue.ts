@@ -110,6 +110,7 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
       } catch (e) {
         // A failed start (database unreachable) must not leave its pool behind; the next attempt makes a new one.
         await boss.stop({ graceful: false, wait: false }).catch(() => undefined);
+        this.starting = null;
         throw e;
       }
       this.boss = boss;
