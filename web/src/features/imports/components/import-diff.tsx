@@ -131,7 +131,7 @@ export function ImportDiff({ diff }: { diff: Diff }) {
         ) : (
           <>
             Against revision {diff.against!.number}
-            {diff.against!.label ? ` (${diff.against!.label})` : ''}: {diff.added.length} added, {diff.removed.length}{' '}
+            {diff.against!.label ? `, “${diff.against!.label}”` : ''}: {diff.added.length} added, {diff.removed.length}{' '}
             removed, {diff.changed.length} changed, {diff.unchanged} unchanged.{' '}
             {diff.flips.length > 0 && (
               <Typography.Text type={toFail > 0 ? 'danger' : 'success'}>

@@ -41,13 +41,13 @@ export function RevisionsTable({
         {
           title: 'Label',
           dataIndex: 'label',
-          ellipsis: true,
+          ellipsis: { showTitle: true },
           render: (_v, r) => r.label ?? <Typography.Text type="secondary">—</Typography.Text>,
         },
         {
           title: 'Uploaded by',
           dataIndex: 'uploadedBy',
-          width: 160,
+          width: 150,
           ellipsis: true,
           render: (_v, r) => r.uploadedBy?.name ?? <Typography.Text type="secondary">(removed account)</Typography.Text>,
         },
@@ -63,7 +63,7 @@ export function RevisionsTable({
         {
           title: 'Files',
           key: 'files',
-          width: 300,
+          width: 250,
           render: (_v, r) => (
             <Space size={0} wrap>
               <Button

@@ -50,8 +50,7 @@ export function UploadRejected({ fileName, error }: { fileName: string; error: u
               <div>{error.message}</div>
               <div>
                 {fileName}: {count(errors, 'error', 'errors')}
-                {warnings > 0 && `, ${count(warnings, 'warning', 'warnings')}`}. Fix the cells below in the file and upload
-                it again.
+                {warnings > 0 && `, ${count(warnings, 'warning', 'warnings')}`}, listed below.
               </div>
             </>
           }

@@ -53,7 +53,7 @@ describe('Imports', () => {
     await user.upload(await fileInput(), xlsx());
 
     expect(await screen.findByText('Nothing was stored')).toBeInTheDocument();
-    expect(screen.getByText(/halvercote-yard-rev-b\.xlsx: 2 errors, 1 warning/)).toBeInTheDocument();
+    expect(screen.getByText('halvercote-yard-rev-b.xlsx: 2 errors, 1 warning, listed below.')).toBeInTheDocument();
 
     const [post] = api.calls('POST /api/projects/7/imports');
     expect(post.headers['x-csrf-token']).toBe('csrf-7');
@@ -77,6 +77,13 @@ describe('Imports', () => {
     expect(within(warning).getByText('whole row')).toBeInTheDocument();
     // Nothing to commit: no preview appeared.
     expect(screen.queryByRole('button', { name: /Commit as revision/ })).not.toBeInTheDocument();
+
+    // Only the warnings, by the severity filter.
+    await user.click(within(table).getByRole('button', { name: /filter/i }));
+    await user.click(await screen.findByText('Warnings'));
+    await user.click(screen.getByRole('button', { name: 'OK' }));
+    await waitFor(() => expect(within(table).queryByText('about 180')).not.toBeInTheDocument());
+    expect(within(table).getByText(/Camber is given/)).toBeInTheDocument();
   });
 
   it('explains a file that is too large in the words of the server', async () => {
@@ -111,7 +118,7 @@ describe('Imports', () => {
     expect(within(verdicts).getByText('376')).toBeInTheDocument();
     expect(within(verdicts).getByText('15')).toBeInTheDocument();
     expect(screen.getAllByText(/does not replace the engineer of record's judgement or the local building code/).length).toBeGreaterThan(1);
-    expect(screen.getByText(/Against revision 1 \(Rev A, scheme design\): 0 added, 0 removed, 1 changed, 390 unchanged/)).toBeInTheDocument();
+    expect(screen.getByText(/Against revision 1, “Rev A, scheme design”: 0 added, 0 removed, 1 changed, 390 unchanged/)).toBeInTheDocument();
     expect(screen.getByText('1 now fails.')).toBeInTheDocument();
 
     // Opens on the flips.
@@ -136,6 +143,25 @@ describe('Imports', () => {
     // The preview is gone and the revisions are fetched again.
     expect(screen.queryByRole('button', { name: /Commit as revision/ })).not.toBeInTheDocument();
     await waitFor(() => expect(api.calls('GET /api/projects/7/revisions').length).toBeGreaterThan(1));
+  });
+
+  it('discards a draft on request: DELETE to its route, and the preview goes', async () => {
+    setCsrfCookie('csrf-7');
+    const api = importsApi(engineer, 'engineer', {
+      'POST /api/projects/7/imports': { status: 201, body: preview },
+      'DELETE /api/projects/7/imports/:draftId': { status: 204 },
+    });
+    const { user } = renderApp('/projects/7/imports');
+    await user.upload(await fileInput(), xlsx());
+    await user.click(await screen.findByRole('button', { name: 'Discard' }));
+    await user.click(within(await screen.findByRole('tooltip')).getByRole('button', { name: 'Discard' }));
+
+    expect(await screen.findByText('The upload was discarded; no revision was made.')).toBeInTheDocument();
+    const [discard] = api.calls('DELETE /api/projects/7/imports/:draftId');
+    expect(discard.path).toBe('/api/projects/7/imports/draft-9f2');
+    expect(discard.headers['x-csrf-token']).toBe('csrf-7');
+    expect(screen.queryByRole('button', { name: /Commit as revision/ })).not.toBeInTheDocument();
+    expect(api.calls('POST /api/projects/7/imports/:draftId/commit')).toHaveLength(0);
   });
 
   it('polls a background commit about once a second and shows its progress until it is done', async () => {

@@ -30,7 +30,8 @@ type Stage =
   | { kind: 'uploading'; upload: UploadInProgress }
   | { kind: 'rejected'; fileName: string; error: unknown }
   | { kind: 'preview'; preview: ImportPreview }
-  | { kind: 'committed'; revision: RevisionSummary };
+  | { kind: 'committed'; revision: RevisionSummary }
+  | { kind: 'discarded'; fileName: string };
 
 /** Journey 1: template, upload, validation report, diff against the current revision, commit; the revisions. */
 export function ImportsPage() {
@@ -61,12 +62,11 @@ export function ImportsPage() {
     }
   };
 
-  const onDiscard = async (draftId: string) => {
+  const onDiscard = async (draft: ImportPreview) => {
     setDiscarding(true);
     try {
-      await discardImport(project.id, draftId);
-      setStage({ kind: 'idle' });
-      void message.success('The upload was discarded; no revision was made.');
+      await discardImport(project.id, draft.draftId);
+      setStage({ kind: 'discarded', fileName: draft.fileName });
     } catch (e) {
       void message.error(errorMessage(e));
     } finally {
@@ -108,6 +108,15 @@ export function ImportsPage() {
                   description={`${stage.revision.memberCount} members, ${stage.revision.failCount} failing. It is now the current revision.`}
                 />
               )}
+              {stage.kind === 'discarded' && (
+                <Alert
+                  type="info"
+                  showIcon
+                  closable={{ onClose: () => setStage({ kind: 'idle' }) }}
+                  title="The upload was discarded; no revision was made."
+                  description={`${stage.fileName} is not stored. The current revision stays as it was.`}
+                />
+              )}
             </Flex>
           </RegionBoundary>
         </Card>
@@ -132,7 +141,7 @@ export function ImportsPage() {
             preview={stage.preview}
             discarding={discarding}
             onCommitted={onCommitted}
-            onDiscard={() => void onDiscard(stage.preview.draftId)}
+            onDiscard={() => void onDiscard(stage.preview)}
           />
         </RegionBoundary>
       )}
