@@ -24,8 +24,11 @@ async function shot(page: Page, name: string) {
 
 const ENGINEER = { email: 'kasimir.oduya@halvercote.example', password: 'halvercote-demo' };
 const stamp = Date.now().toString(36);
-const scratch = fs.mkdtempSync(path.join(os.tmpdir(), 'sagline-import-e2e-'));
-
+// Made in the worker, not at load: Playwright also loads this file in its runner process.
+let scratch = '';
+test.beforeAll(() => {
+  scratch = fs.mkdtempSync(path.join(os.tmpdir(), 'sagline-import-e2e-'));
+});
 test.afterAll(() => fs.rmSync(scratch, { recursive: true, force: true }));
 
 async function signIn(page: Page, email: string, password: string) {
