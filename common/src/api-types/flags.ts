@@ -158,7 +158,8 @@ export interface StaleFlagDetail {
  * Query of GET …/flags. Lists are comma-separated (`status=open,answered`).
  * `assignee`: user ids, `me`, or `none` (unassigned). `level`: level ids (of
  * the member in the latest revision). `mark`: text the mark contains (no case).
- * `overdue=true`: only overdue flags. `check`: exact check names.
+ * `overdue=true`: only overdue flags. `check`: exact check names, one per
+ * parameter (not split at commas).
  */
 export interface FlagListQuery {
   status?: string;
@@ -187,8 +188,11 @@ export interface FlagSummary {
   byStatus: FlagCountsByStatus;
   /** Open or answered and past their due date. */
   overdue: number;
-  /** By the member's level in the latest revision; level null for marks no longer in it. Bottom level first. */
-  byLevel: ({ level: { id: number; name: string } | null } & FlagCountsByStatus)[];
+  /**
+   * By the member's level in the latest revision, bottom level first; level
+   * null for marks no longer in it (id null: a level since removed from the project).
+   */
+  byLevel: ({ level: { id: number | null; name: string } | null } & FlagCountsByStatus)[];
   /** By assignee; assignee null = unassigned. Ordered by name. */
   byAssignee: ({ assignee: FlagPerson | null; overdue: number } & FlagCountsByStatus)[];
 }
@@ -227,11 +231,13 @@ export interface BulkRaiseFlagsRequest {
 
 /** The Members list filter (members.ts MemberListQuery) without revision, verdict (always fail), sort and paging. */
 export interface BulkFlagMemberFilter {
-  level?: string;
-  category?: string;
-  material?: string;
-  reviewer?: string;
-  check?: string;
+  /** As in the query: comma-separated text, or a list. */
+  level?: string | string[];
+  category?: string | string[];
+  material?: string | string[];
+  reviewer?: string | string[];
+  /** One check name, or a list (never split at commas). */
+  check?: string | string[];
   utilMin?: number;
   utilMax?: number;
   q?: string;

@@ -40,7 +40,8 @@ export const MEMBER_LIMITS = {
  * - level: level ids; category, material: codes (exact);
  * - reviewer: user ids, or `none` (no reviewer on the team);
  * - verdict: `pass`, `fail` or `unchecked` (no check applies);
- * - check: check names; a member matches when it FAILS one of them;
+ * - check: check names, one per parameter (`check=L%2F360%20live&check=…`: names
+ *   may hold commas, so they are not split); a member matches when it FAILS one of them;
  * - utilMin / utilMax: bounds (inclusive) on the largest utilisation (1 = at the limit);
  * - q: text the mark or the grid contains, ignoring case.
  * Marks sort naturally (B2 before B10).
@@ -122,8 +123,8 @@ export interface MemberFacets {
   materials: FacetCount[];
   /** id null: members whose reviewer is not on the team (or none given). */
   reviewers: { id: number | null; name: string | null; count: number; failCount: number }[];
-  /** Every check of the revision: members checked by it, and members failing it. */
-  checks: { name: string; count: number; failCount: number }[];
+  /** Every check name of the revision's limit set for the categories it has, with the members failing it. */
+  checks: { name: string; failCount: number }[];
 }
 
 /** A load as stored, in the engine's shape (SI, positive down), with where in the workbook it came from. */

@@ -1,0 +1,66 @@
+import { Type } from 'class-transformer';
+import { IsIn, IsInt, IsOptional, Matches, Max, Min } from 'class-validator';
+import { MEMBER_LIMITS, MEMBER_SORTS, type MemberSort } from '@sagline/common/api-types';
+import { IdList, SearchText, TextList, Utilization, WordList } from './list-params';
+
+const VERDICTS = ['pass', 'fail', 'unchecked'] as const;
+
+/** The Members filter (also the `filter` of a bulk flag raise, without revision, verdict, sort and paging). */
+export class MemberFilterFields {
+  @IdList('level')
+  level?: string[];
+
+  @TextList('steel-floor-beam')
+  category?: string[];
+
+  @TextList('steel,timber')
+  material?: string[];
+
+  @IdList('reviewer (user)', ['none'])
+  reviewer?: string[];
+
+  @TextList('check=L/360 live&check=L/240 total', { commas: false })
+  check?: string[];
+
+  @Utilization()
+  utilMin?: number;
+
+  @Utilization()
+  utilMax?: number;
+
+  @SearchText(MEMBER_LIMITS.queryMax)
+  q?: string;
+}
+
+/** `?revision=` of the facets and the member detail. */
+export class RevisionQuery {
+  @IsOptional()
+  @Matches(/^(latest|[1-9]\d{0,9})$/, { message: 'must be "latest" or a revision id of this project' })
+  revision: string = 'latest';
+}
+
+export class ListMembersQuery extends MemberFilterFields {
+  @IsOptional()
+  @Matches(/^(latest|[1-9]\d{0,9})$/, { message: 'must be "latest" or a revision id of this project' })
+  revision: string = 'latest';
+
+  @WordList(VERDICTS)
+  verdict?: ('pass' | 'fail' | 'unchecked')[];
+
+  @IsOptional()
+  @IsIn(MEMBER_SORTS, { message: `must be one of ${MEMBER_SORTS.join(', ')}` })
+  sort: MemberSort = 'mark';
+
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt({ message: 'must be a whole number (1 is the first page)' })
+  @Min(1, { message: 'must be 1 or more' })
+  page: number = 1;
+
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt({ message: 'must be a whole number' })
+  @Min(1, { message: 'must be 1 or more' })
+  @Max(MEMBER_LIMITS.pageSizeMax, { message: `must be at most ${MEMBER_LIMITS.pageSizeMax}` })
+  pageSize: number = MEMBER_LIMITS.pageSizeDefault;
+}
