@@ -61,6 +61,21 @@ describe('imports', () => {
     expect((await t.knex('import_drafts').where({ id: preview.draftId }).delete())).toBe(1);
   });
 
+  it('writes the template and example of a US project in US customary units, and the example imports cleanly', async () => {
+    const us = await f.project({ name: 'Annex', levels: ['Level 1', 'Level 2', 'Roof'], team: [[engineer, 'engineer']] });
+    await t.knex('projects').where({ id: us.id }).update({ unit_system: 'US' });
+    const template = await download(t, eng, `/api/projects/${us.id}/imports/template`);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(template.body as ArrayBuffer);
+    const header = (wb.getWorksheet('Members')!.getRow(1).values as unknown[]).slice(1);
+    expect(header).toEqual(expect.arrayContaining(['Spans [ft]', 'E [ksi]', 'I [in^4]', 'Depth [in]', 'D [plf]', 'L [plf]']));
+    const example = await download(t, eng, `/api/projects/${us.id}/imports/example`);
+    const up = await uploadFile(t, eng, us.id, example.body as Buffer, 'annex-example.xlsx');
+    expect(up.status).toBe(201);
+    expect(up.body).toMatchObject({ unitSystem: 'US', memberCount: 6, problems: [], summary: { pass: 6, fail: 0, unchecked: 0 } });
+    await eng.delete(`/api/projects/${us.id}/imports/${up.body.draftId}`);
+  });
+
   it('shows the limit set the verdicts come from, with every rule’s source', async () => {
     const res = await eng.get(`${base()}/limit-set`);
     expect(res.status).toBe(200);
