@@ -124,8 +124,9 @@ async function main(): Promise<void> {
   } else {
     const importEsm = new Function('s', 'return import(s)') as (s: string) => Promise<{ startCluster(o: { dataDir: string; port: number }): { url: string; stop(): void } }>;
     const mod = await importEsm(pathToFileURL(path.join(ROOT, 'database/scripts/pg-cluster.mjs')).href);
-    cluster = mod.startCluster({ dataDir: path.join(ROOT, '.data', 'bench'), port: 54349 });
-    server = (cluster as { url: string }).url.replace(/\/[^/]*$/, '');
+    const started = mod.startCluster({ dataDir: path.join(ROOT, '.data', 'bench'), port: 54349 });
+    cluster = started;
+    server = started.url.replace(/\/[^/]*$/, '');
   }
   const dbName = `sagline_bench_${process.pid}`;
   const admin = createKnex(`${server}/postgres`, { min: 0, max: 1 });
