@@ -14,7 +14,6 @@ export const drawingInk = {
   dimension: '#5d6d78',
   axis: '#9aa8b1',
   lane: palette.line,
-  halo: '#ffffff',
   background: '#ffffff',
 } as const;
 

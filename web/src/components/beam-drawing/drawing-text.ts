@@ -7,9 +7,11 @@ import { formatQuantity, type UnitSystemId } from '@sagline/common/units';
  * (calc-contract.md: deflection positive up, loads positive down).
  */
 
-/** "12.4 mm down" / "3.1 mm up" / "0 mm" for a signed deflection (m, positive up). */
+/** "12.4 mm down" / "3.1 mm up" / "0.0 mm" (rounds to zero) for a signed deflection (m, positive up). */
 export function deflectionText(deflection: number, system: UnitSystemId): string {
   const magnitude = formatQuantity(Math.abs(deflection), 'deflection', system);
+  // "0.0 mm up" would point a reader at nothing: a value that rounds to zero has no direction.
+  if (Number.parseFloat(magnitude) === 0) return magnitude;
   if (deflection < 0) return `${magnitude} down`;
   if (deflection > 0) return `${magnitude} up`;
   return magnitude;

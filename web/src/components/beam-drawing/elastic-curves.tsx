@@ -120,7 +120,10 @@ export function layoutCurves(
       const d = seg.extreme.deflection;
       if (!Number.isFinite(d) || !Number.isFinite(seg.extreme.x) || Math.abs(d) <= tiny) return;
       const cx = X(seg.extreme.x);
-      const text = `${many ? `${s.name}: ` : ''}${deflectionText(d, system)}`;
+      const words = deflectionText(d, system);
+      // An extreme that rounds to zero at display precision is not worth a mark.
+      if (!/ (up|down)$/.test(words)) return;
+      const text = `${many ? `${s.name}: ` : ''}${words}`;
       const box = placeLabel(cx, estimateTextWidth(text, LABEL_FONT), 4, frame.width - 4);
       candidates.push({ combination: s.name, segment, x: seg.extreme.x, deflection: d, cx, cy: Y(d), text, box });
     });

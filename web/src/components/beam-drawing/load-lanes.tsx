@@ -273,24 +273,32 @@ export function LoadLanes({ layout, length, frame, system, y }: LoadLanesProps) 
               {lane.case}
             </text>
             <line x1={px(x0)} y1={px(bottom + 0.5)} x2={px(xL)} y2={px(bottom + 0.5)} stroke={drawingInk.lane} strokeWidth={1} />
+            {lane.loads.map((placed) => (
+              <g key={placed.index} data-testid="load" data-case={lane.case} data-kind={placed.load.kind} data-load-index={placed.index}>
+                <title>{loadSentence(placed.load, system)}</title>
+                <LoadGlyph
+                  placed={placed}
+                  colour={lane.colour}
+                  length={length}
+                  frame={frame}
+                  bottom={bottom}
+                  labelBottom={glyphTop - placed.row * LABEL_ROW}
+                />
+              </g>
+            ))}
+            {/* Labels above every glyph of the lane, on a pale ground: an arrow from a higher row runs under them. */}
             {lane.loads.map((placed) => {
               const labelBottom = glyphTop - placed.row * LABEL_ROW;
               return (
-                <g
-                  key={placed.index}
-                  data-testid="load"
-                  data-case={lane.case}
-                  data-kind={placed.load.kind}
-                  data-load-index={placed.index}
-                >
-                  <title>{loadSentence(placed.load, system)}</title>
-                  <LoadGlyph
-                    placed={placed}
-                    colour={lane.colour}
-                    length={length}
-                    frame={frame}
-                    bottom={bottom}
-                    labelBottom={labelBottom}
+                <g key={`label-${placed.index}`}>
+                  <rect
+                    x={px(placed.box.left - 2)}
+                    y={px(labelBottom - 13)}
+                    width={px(placed.box.right - placed.box.left + 4)}
+                    height={12}
+                    rx={2}
+                    fill={drawingInk.background}
+                    fillOpacity={0.9}
                   />
                   <text
                     x={px(placed.box.x)}
@@ -300,6 +308,7 @@ export function LoadLanes({ layout, length, frame, system, y }: LoadLanesProps) 
                     fill={drawingInk.text}
                     fontFamily={drawingFont}
                     data-testid="load-label"
+                    data-load-index={placed.index}
                   >
                     {placed.label}
                   </text>

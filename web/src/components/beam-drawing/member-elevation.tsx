@@ -129,6 +129,15 @@ function DimensionPiece({ label, y, length, frame }: { label: DimensionLabel; y:
       <line x1={px(a)} y1={px(y)} x2={px(b)} y2={px(y)} stroke={drawingInk.dimension} strokeWidth={1} />
       {tick(a)}
       {tick(b)}
+      <rect
+        x={px(label.box.left - 2)}
+        y={px(textY - 10)}
+        width={px(label.box.right - label.box.left + 4)}
+        height={13}
+        rx={2}
+        fill={drawingInk.background}
+        fillOpacity={0.9}
+      />
       <text
         x={px(label.box.x)}
         textAnchor={label.box.anchor}
@@ -136,9 +145,6 @@ function DimensionPiece({ label, y, length, frame }: { label: DimensionLabel; y:
         fontSize={DIM_FONT}
         fill={drawingInk.text}
         fontFamily={drawingFont}
-        stroke={drawingInk.halo}
-        strokeWidth={3}
-        paintOrder="stroke"
         data-testid="dimension-label"
       >
         {label.text}
