@@ -5,10 +5,12 @@ import type { AppConfig } from './config/app-config';
 import { ConfigModule } from './config/config.module';
 import { DbModule } from './db/db.module';
 import { ExportsModule } from './exports/exports.module';
+import { FlagsModule } from './flags/flags.module';
 import { HealthModule } from './health/health.module';
 import { ImportsModule } from './imports/imports.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
+import { MembersModule } from './members/members.module';
 import { ProjectsModule } from './projects/projects.module';
 import { TeamModule } from './team/team.module';
 import { UsersModule } from './users/users.module';
@@ -31,6 +33,7 @@ export class AppModule {
         MailModule,
         HealthModule,
         ImportsModule, ExportsModule,
+        FlagsModule, MembersModule,
       ],
     };
   }
