@@ -117,7 +117,8 @@ const STATUS_COUNTS = [
 
 /** The day in UTC: due dates are calendar dates, and every api process must agree on "today". */
 const TODAY = `(now() at time zone 'utc')::date`;
-const OVERDUE = `(f.status in ('open', 'answered') and f.due_date < ${TODAY})`;
+// coalesce: without a due date the comparison is null, and `not null` would drop the flag from "not overdue" too.
+const OVERDUE = `coalesce(f.status in ('open', 'answered') and f.due_date < ${TODAY}, false)`;
 
 const ORDER: Record<FlagSort, string> = {
   created: 'f.created_at asc, f.id asc',

@@ -367,6 +367,7 @@ export class MembersRepository {
     return (trx ?? this.knex)('results')
       .whereIn('member_id', memberIds)
       .groupBy('member_id', 'check_name')
+      .orderBy([{ column: 'member_id' }, { column: 'check_name' }])
       .select('member_id', 'check_name', this.knex.raw('max(utilization) as utilization'), this.knex.raw('bool_and(pass) as pass'));
   }
 

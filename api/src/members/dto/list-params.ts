@@ -2,6 +2,8 @@ import { applyDecorators } from '@nestjs/common';
 import { Transform, Type } from 'class-transformer';
 import { ArrayMaxSize, IsArray, IsIn, IsNumber, IsOptional, IsString, Matches, MaxLength, Min } from 'class-validator';
 
+// Inside applyDecorators the rule listed LAST is reported when several fail, so the basic one goes last.
+
 /** Longest comma-separated list a filter takes (more is a mistake, not a filter). */
 export const LIST_MAX = 200;
 
@@ -23,10 +25,10 @@ export const TextList = (example: string, options: { commas?: boolean } = {}) =>
   applyDecorators(
     IsOptional(),
     Transform(({ value }) => splitList(value, options.commas ?? true)),
-    IsArray({ message: `must be a comma-separated list, e.g. ${example}` }),
-    ArrayMaxSize(LIST_MAX, { message: `may list at most ${LIST_MAX} values` }),
-    IsString({ each: true, message: `must be a comma-separated list, e.g. ${example}` }),
     MaxLength(120, { each: true, message: 'each value must be at most 120 characters' }),
+    ArrayMaxSize(LIST_MAX, { message: `may list at most ${LIST_MAX} values` }),
+    IsString({ each: true, message: `must be a list of texts, e.g. ${example}` }),
+    IsArray({ message: `must be a list of texts, e.g. ${example}` }),
   );
 
 /** A comma-separated list of ids; `extra` words (e.g. `none`, `me`) are allowed beside them. */
@@ -36,9 +38,9 @@ export const IdList = (what: string, extra: string[] = []) => {
   return applyDecorators(
     IsOptional(),
     Transform(({ value }) => splitList(value)),
-    IsArray({ message: `must be ${hint}` }),
     ArrayMaxSize(LIST_MAX, { message: `may list at most ${LIST_MAX} values` }),
     Matches(new RegExp(`^([1-9]\\d{0,9}${words})$`), { each: true, message: `must be ${hint}` }),
+    IsArray({ message: `must be ${hint}` }),
   );
 };
 
@@ -47,8 +49,8 @@ export const Utilization = () =>
   applyDecorators(
     IsOptional(),
     Type(() => Number),
-    IsNumber({ allowNaN: false, allowInfinity: false }, { message: 'must be a number, e.g. 0.9 (1 = at the limit)' }),
-    Min(0, { message: 'must be 0 or more' }),
+    IsNumber({ allowNaN: false, allowInfinity: false }, { message: 'must be a number of 0 or more, e.g. 0.9 (1 = at the limit)' }),
+    Min(0, { message: 'must be a number of 0 or more, e.g. 0.9 (1 = at the limit)' }),
   );
 
 /** Ids among `values` as numbers, and whether any of `word` was given. */
@@ -58,7 +60,7 @@ export function idsAnd(values: string[] | undefined, word: string): { ids: numbe
 }
 
 export const SearchText = (max: number) =>
-  applyDecorators(IsOptional(), Transform(({ value }) => (typeof value === 'string' ? value.trim() : value)), IsString({ message: 'must be text' }), MaxLength(max, { message: `must be at most ${max} characters` }));
+  applyDecorators(IsOptional(), Transform(({ value }) => (typeof value === 'string' ? value.trim() : value)), MaxLength(max, { message: `must be at most ${max} characters` }), IsString({ message: 'must be text' }));
 
 /** A comma-separated list of words from `allowed`. */
 export const WordList = (allowed: readonly string[]) =>
