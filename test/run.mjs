@@ -102,6 +102,7 @@ async function main() {
         if (tier === 'build') {
           build();
           run('npx', ['tsc', '--noEmit', '-p', 'api/test/tsconfig.json']);
+          run('npx', ['tsc', '--noEmit', '-p', 'common/bin']);
           run('npm', ['run', '-s', 'typecheck', '-w', '@sagline/web']);
           r = { passed: 1, failed: 0, skipped: 0 };
         } else if (tier === 'unit') r = jestTier('unit', 'common/jest.config.js');

@@ -7,7 +7,7 @@ async function tables(knex: Knex): Promise<string[]> {
 }
 
 const SCHEMA = [
-  'activity', 'import_drafts', 'import_jobs', 'invitations', 'levels', 'limit_sets', 'member_loads', 'members',
+  'activity', 'flag_events', 'flags', 'import_drafts', 'import_jobs', 'invitations', 'levels', 'limit_sets', 'member_loads', 'members',
   'outbound_mail', 'project_roles', 'projects', 'rate_limit_hits', 'results', 'revisions', 'sessions', 'users',
 ];
 
