@@ -22,8 +22,9 @@ export interface MemberSpec {
   E?: number;
   /** 10^6 mm^4 */
   I?: number;
-  D?: number;
-  L?: number;
+  /** kN/m; null for no load of the case. */
+  D?: number | null;
+  L?: number | null;
   reviewer?: string;
   notes?: string;
 }
@@ -42,7 +43,7 @@ export function scheduleCsv(members: MemberSpec[]): string {
   const rows = members.map((m) =>
     [
       m.mark, m.level ?? 'L1', m.grid ?? '', m.category ?? 'floor', m.material ?? 'steel', m.section ?? '', m.spans ?? '6',
-      m.leftOverhang, m.rightOverhang, m.supports ?? 'pinned', m.E ?? 200, m.I ?? 100, '', '', m.D ?? 5, m.L ?? 6, '', '', '',
+      m.leftOverhang, m.rightOverhang, m.supports ?? 'pinned', m.E ?? 200, m.I ?? 100, '', '', m.D === null ? '' : (m.D ?? 5), m.L === null ? '' : (m.L ?? 6), '', '', '',
       m.reviewer ?? '', m.notes ?? '',
     ].map(csvCell).join(','),
   );
