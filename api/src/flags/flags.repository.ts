@@ -333,6 +333,21 @@ export class FlagsRepository {
     return row?.name ?? '';
   }
 
+  // ------------------------------------------------------------------ demo
+
+  async projectIdByNumber(number: string): Promise<number | undefined> {
+    return (await this.knex('projects').where({ number }).orderBy('id').first('id'))?.id;
+  }
+
+  async hasFlags(projectId: number): Promise<boolean> {
+    return (await this.knex('flags').where({ project_id: projectId }).first('id')) !== undefined;
+  }
+
+  /** The team with roles, by name: who the demo flags are raised by and assigned to. */
+  team(projectId: number): Promise<(PersonRow & { role: string })[]> {
+    return this.knex('project_roles as r').join('users as u', 'u.id', 'r.user_id').where('r.project_id', projectId).orderBy('u.name').select('u.id', 'u.name', 'u.email', 'r.role');
+  }
+
   revision(trx: Trx, revisionId: number): Promise<{ id: number; number: number; project_id: number } | undefined> {
     return trx('revisions').where({ id: revisionId }).first('id', 'number', 'project_id');
   }
