@@ -47,9 +47,10 @@ function jestTier(name, config, env = {}) {
 async function e2eTier(cluster) {
   ensureDebianPackage('/usr/bin/chromium', 'chromium');
   const databaseUrl = cluster.createDatabase('sagline_e2e');
-  const port = 4190;
-  const smtpPort = 2595;
-  const mailboxPort = 2596;
+  // Ports may be moved so that two runs on one machine do not collide.
+  const port = Number(process.env.E2E_PORT ?? 4190);
+  const smtpPort = Number(process.env.E2E_SMTP_PORT ?? 2595);
+  const mailboxPort = Number(process.env.E2E_MAILBOX_PORT ?? 2596);
   const env = {
     DATABASE_URL: databaseUrl,
     HOST: '127.0.0.1',
@@ -75,7 +76,9 @@ async function e2eTier(cluster) {
   fs.rmSync(out, { force: true });
   fs.mkdirSync(ARTIFACTS, { recursive: true });
   try {
-    run('npx', ['playwright', 'test', '-c', 'test/e2e/playwright.config.ts', '--reporter=list,json'], {
+    // E2E_FILES: only these spec files (a space-separated list), for a quick run.
+    const only = (process.env.E2E_FILES ?? '').split(' ').filter(Boolean);
+    run('npx', ['playwright', 'test', '-c', 'test/e2e/playwright.config.ts', '--reporter=list,json', ...only], {
       env: { ...process.env, BASE_URL: env.PUBLIC_URL, DATABASE_URL: databaseUrl, PLAYWRIGHT_JSON_OUTPUT_NAME: out },
     });
   } catch {
@@ -92,7 +95,7 @@ async function main() {
   ensureDependencies();
   fs.mkdirSync(RESULTS, { recursive: true });
   const results = [];
-  const cluster = startCluster({ dataDir: path.join(ROOT, '.data', 'test'), port: TEST_PG_PORT, database: 'sagline_test' });
+  const cluster = startCluster({ dataDir: path.join(ROOT, process.env.TEST_PG_DIR ?? path.join('.data', 'test')), port: TEST_PG_PORT, database: 'sagline_test' });
   const stopCluster = () => cluster.stop();
   try {
     for (const tier of tiers) {
