@@ -8,10 +8,8 @@
 import fc from 'fast-check';
 import { analyzeBeam, checkBeam, deflectionCurve, type BeamInput, type BeamReport, type Load, type Support } from '.';
 
-// A fixed seed keeps CI repeatable. A random run found one counterexample
-// (seed 1435476486: a fixed-end cantilever with a short linear load at the tip,
-// contributions vs extreme differing by ~3e-12 relative); it is listed as open work.
-fc.configureGlobal({ seed: 20261202 });
+// A fixed seed keeps CI repeatable; FC_SEED=<n> runs another one.
+fc.configureGlobal({ seed: Number(process.env.FC_SEED ?? 20261202) });
 
 const RUNS = { numRuns: 120 };
 
@@ -100,6 +98,16 @@ function withCombinations(input: BeamInput, combinations: BeamInput['combination
   return { ...input, combinations };
 }
 
+/**
+ * Two evaluations of one curve (the extreme from the combined curve, a
+ * contribution from its load's own curve, a sampled point) agree to the
+ * rounding of the stiffness solution. A 0.02 m element beside a 0.98 m one (stiffness terms
+ * go as 1/L³) makes that solution about 1e5 times worse conditioned than
+ * uniform elements, so 1e-12 of the deflection is too tight: a random run
+ * (seed 1435476486) found 2.6e-12. 1e-10 still catches a lost or doubled load or a missed extreme.
+ */
+const ROUNDING_TOL = 1e-10;
+
 describe('linearity and superposition', () => {
   it('a combination equals the factored sum of its cases, point by point', () => {
     fc.assert(
@@ -137,12 +145,34 @@ describe('linearity and superposition', () => {
         const scale = scaleOf(r);
         for (const seg of r.combinations.all.segments) {
           const sum = seg.contributions.reduce((s, c) => s + c.deflection, 0);
-          expectNear(sum, seg.extreme.deflection, scale, 1e-12);
+          expectNear(sum, seg.extreme.deflection, scale, ROUNDING_TOL);
           expect(seg.contributions.map((c) => c.load)).toEqual(input.loads.map((_, k) => k));
         }
       }),
       RUNS,
     );
+  });
+});
+
+describe('the counterexample a random run found (seed 1435476486)', () => {
+  it('a cantilever fixed at its right end with a short linear load at the support: contributions sum to the extreme', () => {
+    const input: BeamInput = {
+      length: 1, E: 200e9, I: 0.000008315166533708599,
+      supports: [{ x: 1, kind: 'fixed' }],
+      loads: [{ case: 'D', kind: 'linear', x1: 0.98, x2: 1, w1: 0, w2: 131.52 }],
+      combinations: { all: { D: 1 } },
+    };
+    const seg = analyzeBeam(input).combinations.all.segments[0];
+    expect(seg.contributions).toHaveLength(1);
+    expectNear(seg.contributions[0].deflection, seg.extreme.deflection, Math.abs(seg.extreme.deflection), ROUNDING_TOL);
+    // The free end moves down by the point-load cantilever formula
+    // Δ = P·b²(3L − b)/(6EI) (b from the fixed end; AISC Steel Construction Manual,
+    // 15th ed., Table 3-23, cantilever with a concentrated load at any point)
+    // integrated over the triangle w(b) = w·(1 − b/a): Δ = w(L·a³/4 − a⁴/20)/(6EI).
+    const w = 131.52, a = 0.02, L = 1, EI = input.E * input.I;
+    const expected = -(w * (L * a ** 3 / 4 - a ** 4 / 20)) / (6 * EI);
+    expect(seg.extreme.x).toBe(0);
+    expectNear(seg.extreme.deflection, expected, Math.abs(expected), 1e-9);
   });
 });
 
@@ -173,8 +203,10 @@ describe('mirror symmetry', () => {
         const b = analyzeBeam(mirrored);
         const scale = scaleOf(a);
         a.combinations.all.probes.forEach((p, i) => expectNear(b.combinations.all.probes[i].deflection, p.deflection, scale, 1e-8));
-        const extremes = (r: BeamReport): number[] => r.combinations.all.segments.map((s) => s.extreme.deflection).reverse();
-        extremes(b).forEach((y, i) => expectNear(y, a.combinations.all.segments[i].extreme.deflection, scale, 1e-8));
+        // Sizes, not signs: an antisymmetric curve (seed 8: a moment at the middle of a
+        // fixed-fixed span) bulges up and down equally, and either side is the extreme.
+        const extremes = (r: BeamReport): number[] => r.combinations.all.segments.map((s) => Math.abs(s.extreme.deflection)).reverse();
+        extremes(b).forEach((y, i) => expectNear(y, Math.abs(a.combinations.all.segments[i].extreme.deflection), scale, 1e-8));
       }),
       RUNS,
     );
@@ -278,11 +310,11 @@ describe('extremes are the true extremes', () => {
         for (const seg of r.combinations.all.segments) {
           const inside = curve.filter((p) => p.x >= seg.from && p.x <= seg.to);
           const sampledMax = Math.max(...inside.map((p) => Math.abs(p.deflection)));
-          expect(Math.abs(seg.extreme.deflection)).toBeGreaterThanOrEqual(sampledMax - 1e-12 * scale);
+          expect(Math.abs(seg.extreme.deflection)).toBeGreaterThanOrEqual(sampledMax - ROUNDING_TOL * scale);
           expect(seg.extreme.x).toBeGreaterThanOrEqual(seg.from);
           expect(seg.extreme.x).toBeLessThanOrEqual(seg.to);
           const at = analyzeBeam({ ...input, probes: [seg.extreme.x] }).combinations.all.probes[0].deflection;
-          expectNear(at, seg.extreme.deflection, scale, 1e-12);
+          expectNear(at, seg.extreme.deflection, scale, ROUNDING_TOL);
         }
       }),
       RUNS,
