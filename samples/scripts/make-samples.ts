@@ -14,7 +14,7 @@ import { findCategory } from '../../common/src/limits';
 import { DEMO_CATEGORIES, DEMO_LIMIT_SET } from './categories';
 import { halvercoteYardSI, halvercoteYardUS, LEVELS, type SampleSchedule } from './halvercote-yard';
 import { sheetData } from './read-workbook';
-import { membersCsv, workbookBytes, writeScheduleWorkbook, writeTemplate } from './schedule-workbook';
+import { membersCsv, workbookBytes, writeSampleWorkbook } from './schedule-workbook';
 
 const OUT = join(__dirname, '..');
 
@@ -46,7 +46,7 @@ function report(file: string, result: ParseScheduleResult, schedule?: SampleSche
 
 async function writeExample(file: string, unitSystem: UnitSystemId, schedule: SampleSchedule, title: string): Promise<void> {
   const wb = new ExcelJS.Workbook();
-  writeScheduleWorkbook(wb, { unitSystem, categories: CATEGORIES, categoryLabels: LABELS, members: schedule.members, loads: schedule.loads, title });
+  writeSampleWorkbook(wb, { unitSystem, categories: CATEGORIES, categoryLabels: LABELS, members: schedule.members, loads: schedule.loads, title });
   const bytes = await workbookBytes(wb);
   writeFileSync(join(OUT, file), bytes);
   report(file, await checkWorkbook(bytes, unitSystem), schedule);
@@ -74,7 +74,7 @@ async function main(): Promise<void> {
   await writeExample('halvercote-yard-us.xlsx', 'US', us, 'Halvercote Yard annex: member schedule, revision A (invented demo project, US customary units)');
 
   const template = new ExcelJS.Workbook();
-  writeTemplate(template, { unitSystem: 'SI', categories: CATEGORIES, categoryLabels: LABELS });
+  writeSampleWorkbook(template, { unitSystem: 'SI', categories: CATEGORIES, categoryLabels: LABELS });
   const templateBytes = await workbookBytes(template);
   writeFileSync(join(OUT, 'member-schedule-template.xlsx'), templateBytes);
   const t = await checkWorkbook(templateBytes, 'SI');

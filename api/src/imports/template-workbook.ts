@@ -21,8 +21,8 @@ import type { UnitSystemId } from '@sagline/common/units';
  * the project's unit system), drop-down lists on the coded columns pointing
  * at a Codes sheet, and a "How to fill in" sheet. Headers, codes and help
  * come from the column definitions the parser reads, so the template always
- * matches what an upload accepts. (The same layout as samples/scripts, which
- * writes the sample files; the api cannot import from samples/.)
+ * matches what an upload accepts. samples/scripts writes the sample files
+ * with the same functions.
  */
 
 export type CellInput = string | number | null | undefined;
@@ -41,33 +41,36 @@ export interface ScheduleWorkbookOptions {
   /** The project limit set's categories, offered in the Category drop-down. */
   categories: readonly string[];
   categoryLabels?: Readonly<Record<string, string>>;
+  /** Load cases that get a Members column (default D, L, Lr, S, R, W). */
+  loadCases?: readonly string[];
   /** Shown at the top of the "How to fill in" sheet. */
   title?: string;
   members?: readonly MemberRowInput[];
   loads?: readonly LoadRowInput[];
-  /** Rows below the header that get drop-down lists (default 1000). */
+  /** Rows below the header that get drop-down lists (default 1000, or the data rows + 200). */
   validationRows?: number;
 }
 
-interface LaidOutColumn {
+/** A column in sheet order: a definition, and the case of a load column. */
+export interface LaidOutColumn {
   def: ColumnDef;
   header: string;
   loadCase?: string;
 }
 
 /** Members columns in template order: the fixed columns to Camber, one per load case, then Reviewer and Notes. */
-export function memberLayout(unitSystem: UnitSystemId): LaidOutColumn[] {
+export function memberLayout(unitSystem: UnitSystemId, loadCases: readonly string[] = TEMPLATE_LOAD_CASES): LaidOutColumn[] {
   const out: LaidOutColumn[] = [];
   for (const def of MEMBER_COLUMNS) {
     out.push({ def, header: columnHeader(def, unitSystem) });
     if (def.key === 'camber') {
-      for (const c of TEMPLATE_LOAD_CASES) out.push({ def: LOAD_CASE_COLUMN, header: columnHeader(LOAD_CASE_COLUMN, unitSystem, c), loadCase: c });
+      for (const c of loadCases) out.push({ def: LOAD_CASE_COLUMN, header: columnHeader(LOAD_CASE_COLUMN, unitSystem, c), loadCase: c });
     }
   }
   return out;
 }
 
-function loadLayout(unitSystem: UnitSystemId): LaidOutColumn[] {
+export function loadLayout(unitSystem: UnitSystemId): LaidOutColumn[] {
   return LOAD_COLUMNS.map((def) => ({ def, header: columnHeader(def, unitSystem) }));
 }
 
@@ -165,24 +168,33 @@ function writeHelp(workbook: ExcelJS.Workbook, opts: ScheduleWorkbookOptions): v
 
 const cellValue = (v: CellInput): ExcelJS.CellValue => (v === undefined ? null : v);
 
-/** A schedule workbook (template or filled) as xlsx bytes. */
-export async function scheduleWorkbook(opts: ScheduleWorkbookOptions): Promise<Buffer> {
-  const workbook = new ExcelJS.Workbook();
+/**
+ * Adds the Members, Loads, "How to fill in" and Codes sheets to `workbook`,
+ * with optional data rows. Coded columns (Category, Material, Supports, Case,
+ * Kind) get drop-down lists that point at the Codes sheet.
+ */
+export function writeScheduleWorkbook(workbook: ExcelJS.Workbook, opts: ScheduleWorkbookOptions): void {
   workbook.creator = 'Sagline';
   const members = workbook.addWorksheet(SHEET_NAMES.members);
   const loads = workbook.addWorksheet(SHEET_NAMES.loads);
   writeHelp(workbook, opts);
   const ranges = writeCodes(workbook, opts);
 
-  const mLayout = memberLayout(opts.unitSystem);
+  const mLayout = memberLayout(opts.unitSystem, opts.loadCases);
   writeHeader(members, mLayout);
   for (const row of opts.members ?? []) members.addRow(mLayout.map((c) => cellValue(c.loadCase ? row.loads?.[c.loadCase] : row.values[c.def.key])));
   const lLayout = loadLayout(opts.unitSystem);
   writeHeader(loads, lLayout);
   for (const row of opts.loads ?? []) loads.addRow(lLayout.map((c) => cellValue(row[c.def.key])));
 
-  const rows = opts.validationRows ?? 1000;
+  const rows = opts.validationRows ?? Math.max(1000, (opts.members?.length ?? 0) + 200);
   addValidations(members, mLayout, ranges, rows);
-  addValidations(loads, lLayout, ranges, rows);
+  addValidations(loads, lLayout, ranges, Math.max(rows, (opts.loads?.length ?? 0) + 200));
+}
+
+/** A schedule workbook (template or filled) as xlsx bytes. */
+export async function scheduleWorkbook(opts: ScheduleWorkbookOptions): Promise<Buffer> {
+  const workbook = new ExcelJS.Workbook();
+  writeScheduleWorkbook(workbook, opts);
   return Buffer.from(await workbook.xlsx.writeBuffer());
 }
