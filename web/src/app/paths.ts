@@ -42,7 +42,13 @@ export const paths = {
   },
   projectFlags: {
     path: '/projects/:projectId/flags',
-    getHref: (projectId: ProjectId) => `/projects/${projectId}/flags`,
+    /** `query`: the list's filters, named as the API's FlagListQuery (`status=open&assignee=4`). */
+    getHref: (projectId: ProjectId, query: Record<string, string | undefined> = {}) =>
+      withQuery(`/projects/${projectId}/flags`, query),
+  },
+  projectFlag: {
+    path: '/projects/:projectId/flags/:flagId',
+    getHref: (projectId: ProjectId, flagId: number | string) => `/projects/${projectId}/flags/${flagId}`,
   },
   projectLimitSets: {
     path: '/projects/:projectId/limit-sets',

@@ -25,4 +25,14 @@ export const can = {
   /** Managers and admins invite people, change roles and remove people. */
   manageTeam: (me: Me, myRole: ProjectSummary['myRole']) =>
     me.isAdmin || myRole === 'admin' || myRole === 'manager',
+  /** Checkers raise flags (one or in bulk), close and reopen them. */
+  raiseFlags: (myRole: ProjectSummary['myRole']) => myRole === 'checker',
+  closeFlags: (myRole: ProjectSummary['myRole']) => myRole === 'checker',
+  /** Checkers and managers (admins count as managers) reassign, set due dates, waive, bulk assign. */
+  manageFlags: (myRole: ProjectSummary['myRole']) => myRole === 'checker' || myRole === 'manager' || myRole === 'admin',
+  /** The assignee, or any engineer, answers a flag; viewers never. */
+  answerFlag: (me: Me, myRole: ProjectSummary['myRole'], assigneeId: number | null | undefined) =>
+    myRole !== 'viewer' && (myRole === 'engineer' || (assigneeId != null && assigneeId === me.id)),
+  /** Everyone but viewers comments. */
+  commentOnFlags: (myRole: ProjectSummary['myRole']) => myRole !== 'viewer',
 };
