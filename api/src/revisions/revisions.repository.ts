@@ -291,18 +291,27 @@ export class RevisionsRepository {
       step(part.length);
     }
 
+    await this.insertResults(trx, revisionId, ids, list.map((w) => w.analysis), step);
+  }
+
+  /**
+   * The engine's results of stored members (`memberIds[k]` is the member of
+   * `analyses[k]`), column-wise like insertMembers; `step(rows)` after each
+   * statement. Used by the import above and by a limit-set recompute.
+   */
+  async insertResults(trx: Trx, revisionId: number, memberIds: readonly number[], analyses: readonly MemberAnalysis[], step?: (rows: number) => void): Promise<void> {
     const resultRows: unknown[][] = [];
-    list.forEach((w, k) => {
-      for (const r of w.analysis.results) {
+    analyses.forEach((a, k) => {
+      for (const r of a.results) {
         resultRows.push([
-          ids[k], revisionId, r.checkName, r.combination, r.ruleId, r.segmentIndex, r.segmentKind, r.segmentFrom, r.segmentTo, r.x,
+          memberIds[k], revisionId, r.checkName, r.combination, r.ruleId, r.segmentIndex, r.segmentKind, r.segmentFrom, r.segmentTo, r.x,
           r.deflection, r.effectiveLength, r.spanRatio, r.limitRatio, r.maxAbs, r.plus, r.allowed, r.governing, r.utilization, r.pass, r.requiredI,
         ]);
       }
     });
     for (const part of chunks(resultRows, CHUNK * 2)) {
       await insertColumns(trx, 'results', RESULT_COLUMNS, part);
-      step(part.length);
+      step?.(part.length);
     }
   }
 }
