@@ -1,11 +1,13 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { Knex } from '@sagline/database';
+import type { ActivityPerson } from '@sagline/common/api-types';
 import { KNEX } from '../db/db.tokens';
 import type { Trx } from '../db/transaction';
 
 export interface NewActivity {
   projectId: number | null;
   actorId: number | null;
+  /** `<prefix>.<verb>`, see ACTIVITY_ACTIONS in common/src/api-types/activity.ts. */
   action: string;
   summary: string;
   data?: Record<string, unknown>;
@@ -16,8 +18,25 @@ export interface ActivityRow {
   created_at: Date;
   action: string;
   summary: string;
+  data: Record<string, unknown> | null;
   actor_id: number | null;
   actor_name: string | null;
+}
+
+/** The feed's filters, already checked (ListActivityQuery). */
+export interface ActivityFilter {
+  /** Action prefixes (`flag`, `import` …), from the kinds asked for. */
+  prefixes?: string[];
+  actorId?: number;
+  /** UTC calendar days, both included. */
+  from?: string;
+  to?: string;
+  q?: string;
+}
+
+/** `%`, `_` and `\` taken literally in ILIKE. */
+function likeText(q: string): string {
+  return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 }
 
 @Injectable()
@@ -34,19 +53,41 @@ export class ActivityRepository {
     });
   }
 
-  /** One page of a project's entries, newest first (served by activity_project_created_index). */
-  listByProject(projectId: number, offset: number, limit: number): Promise<ActivityRow[]> {
-    return this.knex('activity as a')
+  private filtered(projectId: number, f: ActivityFilter): Knex.QueryBuilder {
+    const q = this.knex('activity as a').where('a.project_id', projectId);
+    if (f.prefixes?.length) {
+      // split_part(action, '.', 1) = prefix: one expression the kind filter and its index share.
+      q.whereRaw(`split_part(a.action, '.', 1) = any(?)`, [f.prefixes]);
+    }
+    if (f.actorId !== undefined) q.where('a.actor_id', f.actorId);
+    // Days are UTC: from 00:00 of `from` up to (not including) 00:00 after `to`.
+    if (f.from) q.whereRaw(`a.created_at >= (?::date)::timestamp at time zone 'UTC'`, [f.from]);
+    if (f.to) q.whereRaw(`a.created_at < (?::date + 1)::timestamp at time zone 'UTC'`, [f.to]);
+    if (f.q) q.whereRaw(`a.summary ilike ? escape '\\'`, [likeText(f.q)]);
+    return q;
+  }
+
+  /** One page of a project's entries, newest first (activity_project_created_index, or the kind / actor indexes). */
+  list(projectId: number, f: ActivityFilter, offset: number, limit: number): Promise<ActivityRow[]> {
+    return this.filtered(projectId, f)
       .leftJoin('users as u', 'u.id', 'a.actor_id')
-      .where('a.project_id', projectId)
       .orderBy([{ column: 'a.created_at', order: 'desc' }, { column: 'a.id', order: 'desc' }])
       .offset(offset)
       .limit(limit)
-      .select('a.id', 'a.created_at', 'a.action', 'a.summary', 'a.actor_id', 'u.name as actor_name');
+      .select('a.id', 'a.created_at', 'a.action', 'a.summary', 'a.data', 'a.actor_id', 'u.name as actor_name');
   }
 
-  async countByProject(projectId: number): Promise<number> {
-    const row = await this.knex('activity').where({ project_id: projectId }).count<{ count: string }[]>('* as count').first();
+  async count(projectId: number, f: ActivityFilter): Promise<number> {
+    const row = await this.filtered(projectId, f).count<{ count: string }[]>('* as count').first();
     return Number(row?.count ?? 0);
+  }
+
+  /** Everyone who acted in the project's feed, by name. */
+  async people(projectId: number): Promise<ActivityPerson[]> {
+    const rows: { id: number; name: string }[] = await this.knex('users as u')
+      .whereExists(this.knex('activity as a').where('a.project_id', projectId).whereRaw('a.actor_id = u.id'))
+      .orderBy([{ column: 'u.name' }, { column: 'u.id' }])
+      .select('u.id', 'u.name');
+    return rows.map((r) => ({ id: r.id, name: r.name }));
   }
 }

@@ -5,3 +5,6 @@ export * from './projects';
 export * from './imports';
 export * from './flags';
 export * from './members';
+export * from './limit-sets';
+export * from './activity';
+export * from './overview';

@@ -11,7 +11,7 @@ import type { ProjectRole, UnitSystem } from './constraints';
  * POST   /api/projects/:projectId/invitations InviteRequest (manager) -> 201 TeamMember
  * PATCH  /api/projects/:projectId/team/:userId ChangeRoleRequest (manager) -> 200 TeamMember
  * DELETE /api/projects/:projectId/team/:userId (manager) -> 204
- * GET    /api/projects/:projectId/activity?page=&pageSize= -> 200 Page<ActivityEntry>
+ * GET    /api/projects/:projectId/activity?…       -> 200 Page<ActivityEntry> (see activity.ts)
  * GET    /api/users (admin)                      -> 200 Me[]
  * GET    /api/dev/mailbox (development only)     -> 200 MailboxMessage[]
  * GET    /api/health                             -> 200 { status: 'ok', database: 'ok' }
@@ -71,15 +71,6 @@ export interface InviteRequest {
 
 export interface ChangeRoleRequest {
   role: ProjectRole;
-}
-
-export interface ActivityEntry {
-  id: number;
-  at: string;
-  actor: { id: number; name: string } | null;
-  /** e.g. 'project.created', 'team.invited', 'team.role_changed', 'import.committed'. */
-  action: string;
-  summary: string;
 }
 
 export interface Page<T> {

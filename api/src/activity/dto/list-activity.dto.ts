@@ -1,9 +1,34 @@
 import { Type } from 'class-transformer';
-import { IsInt, IsOptional, Max, Min } from 'class-validator';
+import { IsInt, IsOptional, Matches, Max, Min } from 'class-validator';
+import { ACTIVITY_KINDS, ACTIVITY_LIMITS, type ActivityKind } from '@sagline/common/api-types';
+import { SearchText, WordList } from '../../members/dto/list-params';
 
-export const ACTIVITY_PAGE_SIZE_MAX = 100;
+export const ACTIVITY_PAGE_SIZE_MAX = ACTIVITY_LIMITS.pageSizeMax;
+
+const DAY = /^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/;
+const DAY_MESSAGE = 'must be a calendar date written YYYY-MM-DD, e.g. 2026-12-02';
 
 export class ListActivityQuery {
+  @WordList(ACTIVITY_KINDS)
+  kind?: ActivityKind[];
+
+  @IsOptional()
+  @Type(() => Number)
+  @IsInt({ message: 'must be the id of a person (a whole number)' })
+  @Min(1, { message: 'must be the id of a person (a whole number)' })
+  actorId?: number;
+
+  @IsOptional()
+  @Matches(DAY, { message: DAY_MESSAGE })
+  from?: string;
+
+  @IsOptional()
+  @Matches(DAY, { message: DAY_MESSAGE })
+  to?: string;
+
+  @SearchText(ACTIVITY_LIMITS.qMax)
+  q?: string;
+
   @IsOptional()
   @Type(() => Number)
   @IsInt({ message: 'must be a whole number (1 is the newest page)' })
@@ -15,5 +40,5 @@ export class ListActivityQuery {
   @IsInt({ message: 'must be a whole number' })
   @Min(1, { message: 'must be 1 or more' })
   @Max(ACTIVITY_PAGE_SIZE_MAX, { message: `must be at most ${ACTIVITY_PAGE_SIZE_MAX}` })
-  pageSize: number = 25;
+  pageSize: number = ACTIVITY_LIMITS.pageSizeDefault;
 }
