@@ -47,7 +47,7 @@ describe('projects', () => {
 
     const activity = await admin.get(`/api/projects/${res.body.id}/activity`);
     expect(activity.body).toEqual({
-      items: [{ id: expect.any(Number), at: expect.any(String), actor: { id: expect.any(Number), name: 'Rowan Adeyemi' }, action: 'project.created', summary: 'Rowan Adeyemi created the project Quayside Hall (QH-7) with 3 levels' }],
+      items: [{ id: expect.any(Number), at: expect.any(String), actor: { id: expect.any(Number), name: 'Rowan Adeyemi' }, action: 'project.created', kind: 'project', summary: 'Rowan Adeyemi created the project Quayside Hall (QH-7) with 3 levels', refs: {} }],
       total: 1,
       page: 1,
       pageSize: 25,
