@@ -34,7 +34,16 @@ export const paths = {
   },
   projectMembers: {
     path: '/projects/:projectId/members',
-    getHref: (projectId: ProjectId) => `/projects/${projectId}/members`,
+    /**
+     * `query`: the filters, with the API's MemberListQuery names, e.g.
+     * `{ level: '3', verdict: 'fail' }` (lists comma-separated).
+     */
+    getHref: (projectId: ProjectId, query: Record<string, string | undefined> = {}) =>
+      withQuery(`/projects/${projectId}/members`, query),
+  },
+  projectMember: {
+    path: '/projects/:projectId/members/:mark',
+    getHref: (projectId: ProjectId, mark: string) => `/projects/${projectId}/members/${encodeURIComponent(mark)}`,
   },
   projectImports: {
     path: '/projects/:projectId/imports',

@@ -71,12 +71,20 @@ export const routes: RouteObject[] = [
                 lazy: lazyPage(() => import('@/features/members/pages/members-page'), (m) => m.MembersPage),
               },
               {
+                path: paths.projectMember.path,
+                lazy: lazyPage(() => import('@/features/members/pages/member-page'), (m) => m.MemberPage),
+              },
+              {
                 path: paths.projectImports.path,
                 lazy: lazyPage(() => import('@/features/imports/pages/imports-page'), (m) => m.ImportsPage),
               },
               {
                 path: paths.projectFlags.path,
                 lazy: lazyPage(() => import('@/features/flags/pages/flags-page'), (m) => m.FlagsPage),
+              },
+              {
+                path: paths.projectFlag.path,
+                lazy: lazyPage(() => import('@/features/flags/pages/flag-page'), (m) => m.FlagPage),
               },
               {
                 path: paths.projectLimitSets.path,

@@ -1,0 +1,48 @@
+import { Descriptions, Typography } from 'antd';
+import type { MemberDetail } from '@sagline/common/api-types';
+import { Quantity } from '@/components/quantity';
+import { categoryLabel, materialLabel, spansText, supportsLabel } from './member-labels';
+
+/** What the schedule says about the member (in the project's units) and where in the file it came from. */
+export function MemberFacts({ detail }: { detail: MemberDetail }) {
+  const m = detail.member;
+  const system = detail.unitSystem;
+  const none = <Typography.Text type="secondary">—</Typography.Text>;
+  return (
+    <Descriptions
+      size="small"
+      column={{ xs: 1, sm: 2, md: 3, lg: 4 }}
+      items={[
+        { key: 'level', label: 'Level', children: m.level.name },
+        { key: 'grid', label: 'Grid', children: m.grid ?? none },
+        { key: 'category', label: 'Category', children: categoryLabel(m.category) },
+        { key: 'material', label: 'Material', children: materialLabel(m.material) },
+        { key: 'section', label: 'Section', children: m.section ?? none },
+        { key: 'supports', label: 'Supports', children: supportsLabel(m.supports) },
+        { key: 'spans', label: 'Spans', children: spansText(m, system) },
+        { key: 'length', label: 'Length', children: <Quantity si={m.length} quantity="span" system={system} /> },
+        { key: 'E', label: 'E', children: <Quantity si={m.E} quantity="modulus" system={system} /> },
+        { key: 'I', label: 'I', children: <Quantity si={m.I} quantity="inertia" system={system} /> },
+        {
+          key: 'requiredI',
+          label: 'I required',
+          children:
+            m.requiredI === null ? (
+              none
+            ) : (
+              <Quantity si={m.requiredI} quantity="inertia" system={system} style={m.verdict === 'fail' ? { fontWeight: 600 } : undefined} />
+            ),
+        },
+        { key: 'depth', label: 'Depth', children: m.depth === null ? none : <Quantity si={m.depth} quantity="depth" system={system} /> },
+        { key: 'camber', label: 'Camber', children: m.camber === null ? none : <Quantity si={m.camber} quantity="camber" system={system} /> },
+        {
+          key: 'reviewer',
+          label: 'Reviewer',
+          children: m.reviewer?.name ?? (m.reviewerEmail ? `${m.reviewerEmail} (not on the team)` : none),
+        },
+        { key: 'source', label: 'Schedule row', children: `Members sheet, row ${m.sourceRow}` },
+        ...(m.notes ? [{ key: 'notes', label: 'Notes', children: m.notes, span: 'filled' as const }] : []),
+      ]}
+    />
+  );
+}

@@ -1,0 +1,211 @@
+import { Link } from 'react-router-dom';
+import { Table, Tag, Tooltip, Typography } from 'antd';
+import type { ColumnType, SortOrder } from 'antd/es/table/interface';
+import type { MemberRow, MemberSort, MembersPage } from '@sagline/common/api-types';
+import type { UnitSystemId } from '@sagline/common/units';
+import { paths } from '@/app/paths';
+import { Quantity } from '@/components/quantity';
+import { UtilisationBar } from '@/components/utilisation-bar';
+import { VerdictTag } from '@/components/verdict-tag';
+import type { MemberColumnKey } from './member-columns';
+import { categoryLabel, materialLabel, spansText, supportsLabel } from './member-labels';
+import { PAGE_SIZES, type MembersView } from './member-query';
+
+/** The list's sort fields by column (members.ts MEMBER_SORTS). */
+const SORT_FIELD: Partial<Record<MemberColumnKey, string>> = {
+  mark: 'mark',
+  level: 'level',
+  category: 'category',
+  material: 'material',
+  utilization: 'utilization',
+  verdict: 'verdict',
+  reviewer: 'reviewer',
+};
+
+function sortOrderOf(view: MembersView, key: MemberColumnKey): SortOrder {
+  const field = SORT_FIELD[key];
+  if (!field) return null;
+  if (view.sort === field) return 'ascend';
+  if (view.sort === `-${field}`) return 'descend';
+  return null;
+}
+
+/**
+ * One page of members as the server sorted and paged it (nothing is filtered
+ * or sorted here: a 10,000-member revision stays one page of rows). Sorting
+ * and paging go back to the page as a new view, which puts it in the URL.
+ */
+export function MembersTable({
+  projectId,
+  page,
+  loading,
+  view,
+  columns,
+  unitSystem,
+  linkState,
+  onChange,
+}: {
+  projectId: number;
+  page: MembersPage | undefined;
+  loading: boolean;
+  view: MembersView;
+  columns: MemberColumnKey[];
+  unitSystem: UnitSystemId;
+  /** Carried to the member page, so its "back" link returns to this view. */
+  linkState: unknown;
+  onChange: (next: MembersView) => void;
+}) {
+  const memberHref = (mark: string) => {
+    const href = paths.projectMember.getHref(projectId, mark);
+    return view.revision ? `${href}?revision=${view.revision}` : href;
+  };
+
+  const all: Record<MemberColumnKey, ColumnType<MemberRow>> = {
+    mark: {
+      title: 'Mark',
+      dataIndex: 'mark',
+      fixed: 'left',
+      width: 110,
+      render: (_v, m) => (
+        <Link to={memberHref(m.mark)} state={linkState} style={{ fontWeight: 600 }}>
+          {m.mark}
+        </Link>
+      ),
+    },
+    level: { title: 'Level', dataIndex: ['level', 'name'], width: 80 },
+    grid: {
+      title: 'Grid',
+      dataIndex: 'grid',
+      width: 100,
+      render: (_v, m) => m.grid ?? <Typography.Text type="secondary">—</Typography.Text>,
+    },
+    category: {
+      title: 'Category',
+      dataIndex: 'category',
+      width: 170,
+      ellipsis: { showTitle: true },
+      render: (_v, m) => categoryLabel(m.category),
+    },
+    material: { title: 'Material', dataIndex: 'material', width: 130, ellipsis: { showTitle: true }, render: (_v, m) => materialLabel(m.material) },
+    section: {
+      title: 'Section',
+      dataIndex: 'section',
+      width: 120,
+      ellipsis: { showTitle: true },
+      render: (_v, m) => m.section ?? <Typography.Text type="secondary">—</Typography.Text>,
+    },
+    supports: { title: 'Supports', dataIndex: 'supports', width: 160, ellipsis: { showTitle: true }, render: (_v, m) => supportsLabel(m.supports) },
+    spans: { title: 'Spans', key: 'spans', width: 170, render: (_v, m) => spansText(m, unitSystem) },
+    length: {
+      title: 'Length',
+      dataIndex: 'length',
+      width: 90,
+      align: 'right',
+      render: (_v, m) => <Quantity si={m.length} quantity="span" system={unitSystem} />,
+    },
+    governingCheck: {
+      title: 'Governing check',
+      dataIndex: 'governingCheck',
+      width: 150,
+      ellipsis: { showTitle: true },
+      render: (_v, m) => m.governingCheck ?? <Typography.Text type="secondary">—</Typography.Text>,
+    },
+    utilization: {
+      title: 'Utilisation',
+      dataIndex: 'maxUtilization',
+      width: 160,
+      sortDirections: ['descend', 'ascend'],
+      render: (_v, m) => <UtilisationBar value={m.maxUtilization} />,
+    },
+    verdict: { title: 'Verdict', dataIndex: 'verdict', width: 100, render: (_v, m) => <VerdictTag verdict={m.verdict} /> },
+    I: {
+      title: 'I',
+      dataIndex: 'I',
+      width: 120,
+      align: 'right',
+      render: (_v, m) => <Quantity si={m.I} quantity="inertia" system={unitSystem} />,
+    },
+    requiredI: {
+      title: 'I required',
+      dataIndex: 'requiredI',
+      width: 130,
+      align: 'right',
+      render: (_v, m) =>
+        m.requiredI === null ? (
+          <Typography.Text type="secondary">—</Typography.Text>
+        ) : (
+          <Quantity
+            si={m.requiredI}
+            quantity="inertia"
+            system={unitSystem}
+            style={m.verdict === 'fail' ? { fontWeight: 600 } : { color: '#6b7a85' }}
+          />
+        ),
+    },
+    reviewer: {
+      title: 'Reviewer',
+      dataIndex: 'reviewer',
+      width: 150,
+      ellipsis: { showTitle: true },
+      render: (_v, m) =>
+        m.reviewer ? (
+          m.reviewer.name
+        ) : m.reviewerEmail ? (
+          <Tooltip title="Named in the schedule, not on the project's team">
+            <Typography.Text type="secondary">{m.reviewerEmail}</Typography.Text>
+          </Tooltip>
+        ) : (
+          <Typography.Text type="secondary">—</Typography.Text>
+        ),
+    },
+    flags: {
+      title: 'Open flags',
+      dataIndex: 'openFlagCount',
+      width: 95,
+      align: 'right',
+      render: (_v, m) => (m.openFlagCount > 0 ? <Tag color="warning">{m.openFlagCount}</Tag> : <Typography.Text type="secondary">0</Typography.Text>),
+    },
+  };
+
+  const shown = columns.map((key) => ({
+    ...all[key],
+    key,
+    sorter: SORT_FIELD[key] ? true : undefined,
+    sortOrder: SORT_FIELD[key] ? sortOrderOf(view, key) : undefined,
+    sortDirections: all[key].sortDirections ?? (SORT_FIELD[key] ? (['ascend', 'descend'] as SortOrder[]) : undefined),
+    showSorterTooltip: false,
+  }));
+  const width = shown.reduce((sum, c) => sum + (typeof c.width === 'number' ? c.width : 120), 0);
+
+  return (
+    <Table<MemberRow>
+      aria-label="Members"
+      rowKey="id"
+      size="small"
+      loading={loading}
+      dataSource={page?.items ?? []}
+      columns={shown}
+      scroll={{ x: width }}
+      locale={{ emptyText: page?.revision === null ? 'No revision yet: upload the member schedule on the Imports screen.' : 'No member matches these filters.' }}
+      onChange={(pagination, _filters, sorter, extra) => {
+        if (extra.action === 'sort') {
+          const s = Array.isArray(sorter) ? sorter[0] : sorter;
+          const field = s?.order ? SORT_FIELD[s.columnKey as MemberColumnKey] : undefined;
+          const sort = (field ? (s.order === 'descend' ? `-${field}` : field) : 'mark') as MemberSort;
+          onChange({ ...view, sort, page: 1 });
+        } else if (extra.action === 'paginate') {
+          const pageSize = pagination.pageSize ?? view.pageSize;
+          onChange({ ...view, pageSize, page: pageSize !== view.pageSize ? 1 : (pagination.current ?? 1) });
+        }
+      }}
+      pagination={{
+        current: view.page,
+        pageSize: view.pageSize,
+        total: page?.total ?? 0,
+        showSizeChanger: true,
+        pageSizeOptions: PAGE_SIZES.map(String),
+        showTotal: (total, [from, to]) => `${from}–${to} of ${total.toLocaleString('en-GB')}`,
+      }}
+    />
+  );
+}
