@@ -7,8 +7,8 @@ async function tables(knex: Knex): Promise<string[]> {
 }
 
 const SCHEMA = [
-  'activity', 'digest_log', 'flag_events', 'flags', 'import_drafts', 'import_jobs', 'invitations', 'levels', 'limit_sets', 'member_loads', 'members',
-  'outbound_mail', 'project_roles', 'projects', 'rate_limit_hits', 'recompute_jobs', 'results', 'revisions', 'sessions', 'users',
+  'activity', 'digest_log', 'flag_events', 'flags', 'import_drafts', 'import_jobs', 'invitations', 'level_sign_offs', 'levels', 'limit_sets', 'member_loads', 'members',
+  'outbound_mail', 'project_roles', 'projects', 'rate_limit_hits', 'recompute_jobs', 'results', 'reviewer_assignments', 'revisions', 'sessions', 'users',
 ];
 
 describe('migrations', () => {

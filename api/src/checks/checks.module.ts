@@ -1,12 +1,32 @@
 import { Module } from '@nestjs/common';
+import { ActivityModule } from '../activity/activity.module';
+import { JobsModule } from '../jobs/jobs.module';
+import { RevisionsModule } from '../revisions/revisions.module';
 import { ChecksController } from './checks.controller';
+import { LimitSetChangesService } from './limit-set-changes.service';
+import { LimitSetsController } from './limit-sets.controller';
 import { LimitSetsRepository } from './limit-sets.repository';
 import { LimitSetsService } from './limit-sets.service';
+import { RecomputeJobs } from './recompute-jobs';
+import { RecomputeJobsRepository } from './recompute-jobs.repository';
+import { RecomputeSettings, recomputeSettingsFrom } from './recompute-settings';
 
-/** Limit sets and the engine run over members (results are written by the revisions area). */
+/**
+ * Limit sets and the engine run over members: the project's set (read by
+ * imports), the Limit sets screen (copy, edit, choose) and the recompute of
+ * the latest revision when the active set changes (inline or as a job).
+ */
 @Module({
-  controllers: [ChecksController],
-  providers: [LimitSetsRepository, LimitSetsService],
+  imports: [ActivityModule, RevisionsModule, JobsModule],
+  controllers: [ChecksController, LimitSetsController],
+  providers: [
+    { provide: RecomputeSettings, useFactory: () => recomputeSettingsFrom(process.env) },
+    LimitSetsRepository,
+    LimitSetsService,
+    LimitSetChangesService,
+    RecomputeJobsRepository,
+    RecomputeJobs,
+  ],
   exports: [LimitSetsService],
 })
 export class ChecksModule {}

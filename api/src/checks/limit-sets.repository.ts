@@ -14,7 +14,32 @@ export interface LimitSetRow {
   rules: LimitRule[];
   notes: LimitSetNote[];
   version: number;
+  created_at: Date;
   updated_at: Date;
+}
+
+const SET_COLUMNS = ['s.id', 's.project_id', 's.name', 's.description', 's.source_preset_id', 's.categories', 's.rules', 's.notes', 's.version', 's.created_at', 's.updated_at'];
+
+/** The latest revision of a project, with the set its results were computed with. */
+export interface LatestRevisionRow {
+  id: number;
+  number: number;
+  member_count: number;
+  pass_count: number;
+  fail_count: number;
+  limit_set_id: number | null;
+  limit_set_name: string;
+  /** Whether the revision's copy has the active set's current categories and rules. */
+  up_to_date: boolean;
+}
+
+/** A member's new summary after a recompute. */
+export interface MemberSummaryUpdate {
+  id: number;
+  governingCheck: string | null;
+  maxUtilization: number | null;
+  verdict: 'pass' | 'fail' | null;
+  requiredI: number | null;
 }
 
 /** A stored set in the shape common/src/limits works with (its id is the row id as text). */
@@ -31,7 +56,7 @@ export class LimitSetsRepository {
     return (trx ?? this.knex)('limit_sets as s')
       .join('projects as p', 'p.limit_set_id', 's.id')
       .where('p.id', projectId)
-      .first('s.id', 's.project_id', 's.name', 's.description', 's.source_preset_id', 's.categories', 's.rules', 's.notes', 's.version', 's.updated_at');
+      .first(SET_COLUMNS);
   }
 
   /** Locks the project row for the rest of the transaction (one limit-set copy per project, one commit at a time). */
@@ -54,5 +79,105 @@ export class LimitSetsRepository {
       })
       .returning('id');
     await trx('projects').where({ id: projectId }).update({ limit_set_id: row.id });
+  }
+  /** Every set of the project (its own copies), newest first. */
+  listForProject(projectId: number): Promise<LimitSetRow[]> {
+    return this.knex('limit_sets as s').where('s.project_id', projectId).orderBy('s.id', 'desc').select(SET_COLUMNS);
+  }
+
+  /** One of the project's own sets; `lock` takes a row lock for the rest of the transaction. */
+  findOwn(projectId: number, setId: number, trx?: Trx, lock = false): Promise<LimitSetRow | undefined> {
+    const q = (trx ?? this.knex)('limit_sets as s').where({ 's.project_id': projectId, 's.id': setId }).first(SET_COLUMNS);
+    return lock ? q.forUpdate() : q;
+  }
+
+  async activeId(projectId: number, trx?: Trx): Promise<number | null> {
+    const row = await (trx ?? this.knex)('projects').where({ id: projectId }).first('limit_set_id');
+    return row?.limit_set_id ?? null;
+  }
+
+  /** A new set of the project (not made active); returns its id. */
+  async insertOwn(trx: Trx, projectId: number, set: Omit<LimitSet, 'id'>, sourcePresetId: string | null): Promise<number> {
+    const [row] = await trx('limit_sets')
+      .insert({
+        project_id: projectId,
+        name: set.name,
+        description: set.description,
+        source_preset_id: sourcePresetId,
+        categories: JSON.stringify(set.categories),
+        rules: JSON.stringify(set.rules),
+        notes: JSON.stringify(set.notes),
+      })
+      .returning('id');
+    return row.id;
+  }
+
+  /** Stores an edit when the set is still at `version`; false when it moved on (a stale edit). */
+  async updateOwn(trx: Trx, setId: number, version: number, set: Pick<LimitSet, 'name' | 'description' | 'categories' | 'rules'>): Promise<boolean> {
+    const n = await trx('limit_sets')
+      .where({ id: setId, version })
+      .update({
+        name: set.name,
+        description: set.description,
+        categories: JSON.stringify(set.categories),
+        rules: JSON.stringify(set.rules),
+        version: version + 1,
+        updated_at: trx.fn.now(),
+      });
+    return n > 0;
+  }
+
+  async setActive(trx: Trx, projectId: number, setId: number): Promise<void> {
+    await trx('projects').where({ id: projectId }).update({ limit_set_id: setId });
+  }
+
+  /** The project's latest revision and whether its results follow the active set as it stands. */
+  async latestRevision(projectId: number, trx?: Trx): Promise<LatestRevisionRow | undefined> {
+    const db = trx ?? this.knex;
+    const row = await db('revisions as r')
+      .join('projects as p', 'p.id', 'r.project_id')
+      .leftJoin('limit_sets as s', 's.id', 'p.limit_set_id')
+      .where('r.project_id', projectId)
+      .orderBy('r.number', 'desc')
+      .first(
+        'r.id', 'r.number', 'r.member_count', 'r.pass_count', 'r.fail_count', 'r.limit_set_id',
+        db.raw(`r.limit_set->>'name' as limit_set_name`),
+        db.raw(`(r.limit_set_id is not distinct from p.limit_set_id and r.limit_set->'rules' = s.rules and r.limit_set->'categories' = s.categories) as up_to_date`),
+      );
+    return row ? { ...row, up_to_date: row.up_to_date === true } : undefined;
+  }
+
+  /** Member ids of a revision by lower-case mark (marks are unique per revision, case ignored). */
+  async memberIds(trx: Trx, revisionId: number): Promise<Map<string, number>> {
+    const rows: { id: number; mark: string }[] = await trx('members').where({ revision_id: revisionId }).select('id', 'mark');
+    return new Map(rows.map((r) => [r.mark.toLowerCase(), r.id]));
+  }
+
+  /** Drops a revision's results (through the members' index), before the recompute writes new ones. */
+  async deleteResults(trx: Trx, revisionId: number): Promise<void> {
+    await trx.raw('delete from results where member_id in (select id from members where revision_id = ?)', [revisionId]);
+  }
+
+  /** The members' summary columns (the Members screen filters on them), in one statement. */
+  async updateMemberSummaries(trx: Trx, rows: readonly MemberSummaryUpdate[]): Promise<void> {
+    if (rows.length === 0) return;
+    await trx.raw(
+      `update members m set governing_check = t.g, max_utilization = t.u, verdict = t.v, required_i = t.ri
+         from unnest(?::int[], ?::text[], ?::float8[], ?::text[], ?::float8[]) as t(id, g, u, v, ri)
+        where m.id = t.id`,
+      [rows.map((r) => r.id), rows.map((r) => r.governingCheck), rows.map((r) => r.maxUtilization), rows.map((r) => r.verdict), rows.map((r) => r.requiredI)] as unknown as Knex.Value[],
+    );
+  }
+
+  /** Points the revision at the set its results now come from, with a copy of it and the new counts. */
+  async updateRevisionResults(trx: Trx, revisionId: number, setId: number, set: LimitSet, pass: number, fail: number): Promise<void> {
+    await trx('revisions')
+      .where({ id: revisionId })
+      .update({ limit_set_id: setId, limit_set: JSON.stringify(set), pass_count: pass, fail_count: fail });
+  }
+
+  async userName(userId: number | null): Promise<string | null> {
+    if (userId === null) return null;
+    return (await this.knex('users').where({ id: userId }).first('name'))?.name ?? null;
   }
 }
