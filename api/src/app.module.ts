@@ -11,6 +11,7 @@ import { ImportsModule } from './imports/imports.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
 import { MembersModule } from './members/members.module';
+import { OverviewModule } from './overview/overview.module';
 import { ProjectsModule } from './projects/projects.module';
 import { TeamModule } from './team/team.module';
 import { UsersModule } from './users/users.module';
@@ -34,6 +35,7 @@ export class AppModule {
         HealthModule,
         ImportsModule, ExportsModule,
         FlagsModule, MembersModule,
+        OverviewModule,
       ],
     };
   }

@@ -3,6 +3,7 @@ import type { CommitImportResponse } from '@sagline/common/api-types';
 import { ActivityService } from '../activity/activity.service';
 import { analyzeMembers } from '../checks/member-analysis';
 import { LimitSetsService } from '../checks/limit-sets.service';
+import { OverviewRevisionHook } from '../overview/overview-revision-hook';
 import { ApiError, notFound } from '../common/api-error';
 import { TransactionRunner } from '../db/transaction';
 import { toRevisionSummary } from '../revisions/revisions.mapper';
@@ -46,6 +47,7 @@ export class ImportCommitService {
     private readonly activity: ActivityService,
     private readonly tx: TransactionRunner,
     private readonly cache: DraftCache,
+    private readonly overview: OverviewRevisionHook,
   ) {}
 
   async commit(projectId: number, draftId: string, options: CommitOptions): Promise<CommitImportResponse> {
@@ -122,6 +124,8 @@ export class ImportCommitService {
       });
       progress(0.35, 'Writing members and results');
       await this.revisions.insertMembers(trx, revisionId, toWrite, (rows, all) => progress(0.35 + (0.6 * rows) / all, 'Writing members and results'));
+      // Reviewer assignments reach the new members; sign-offs of levels this revision touched are voided.
+      await this.overview.onRevisionCommitted(trx, projectId, { id: revisionId, number }, diff);
       await this.activity.record(trx, {
         projectId,
         actorId: options.actorId,

@@ -2,6 +2,7 @@ import { Module } from '@nestjs/common';
 import { ActivityModule } from '../activity/activity.module';
 import { ChecksModule } from '../checks/checks.module';
 import { JobsModule } from '../jobs/jobs.module';
+import { OverviewModule } from '../overview/overview.module';
 import { RevisionsModule } from '../revisions/revisions.module';
 import { DraftCache } from './draft-cache';
 import { ImportCommitService } from './import-commit.service';
@@ -15,7 +16,7 @@ import { UploadInterceptor } from './upload.interceptor';
 
 /** Schedule imports: template downloads, upload → checked draft → revision (inline or as a background job). */
 @Module({
-  imports: [ActivityModule, ChecksModule, RevisionsModule, JobsModule],
+  imports: [ActivityModule, ChecksModule, RevisionsModule, JobsModule, OverviewModule],
   controllers: [ImportsController],
   providers: [
     { provide: ImportSettings, useFactory: () => parseImportSettings(process.env) },

@@ -1,0 +1,85 @@
+import { Injectable } from '@nestjs/common';
+import type { FlagsOverTime, OverviewLevelRow, OverviewReviewerRow, ProjectOverview } from '@sagline/common/api-types';
+import type { ProjectAccess } from '../auth/project-access';
+import { notFound } from '../common/api-error';
+import { EMPTY_COUNTS, toCounts, toOverviewRevision, toSignOff } from './overview.mapper';
+import { OverviewRepository, type OverviewGroupRow } from './overview.repository';
+import { ReviewerAssignmentsRepository } from './reviewer-assignments.repository';
+import { SignOffsRepository } from './sign-offs.repository';
+
+/** The Overview: counts from SQL, put in the order the screen shows them. */
+@Injectable()
+export class OverviewService {
+  constructor(
+    private readonly repo: OverviewRepository,
+    private readonly assignments: ReviewerAssignmentsRepository,
+    private readonly signOffs: SignOffsRepository,
+  ) {}
+
+  async overview(access: ProjectAccess): Promise<ProjectOverview> {
+    const projectId = access.projectId;
+    const [project, latest, levels, levelAssignments, signOffs, today] = await Promise.all([
+      this.repo.project(projectId),
+      this.repo.latestRevision(projectId),
+      this.repo.levels(projectId),
+      this.assignments.levelAssignments(projectId),
+      this.signOffs.newestPerLevel(projectId),
+      this.repo.today(),
+    ]);
+    if (!project) throw notFound(`Project ${projectId} was not found, or you are not on its team.`);
+    const groups = await this.repo.grouped(projectId, latest?.id ?? null);
+
+    const levelGroups = groups.filter((g) => g.grp === 'level');
+    const byLevelId = new Map(levelGroups.filter((g) => g.present && g.level_id !== null).map((g) => [g.level_id!, g]));
+    const assigned = new Map(levelAssignments.map((a) => [a.level_id, a]));
+    const signed = new Map(signOffs.map((s) => [s.level_id, s]));
+
+    const levelRows: OverviewLevelRow[] = levels.map((l) => {
+      const a = assigned.get(l.id);
+      const s = signed.get(l.id);
+      return {
+        level: { id: l.id, name: l.name },
+        ...toCounts(byLevelId.get(l.id) ?? EMPTY_COUNTS),
+        assignedReviewer: a?.reviewer_id != null && a.reviewer_name !== null ? { id: a.reviewer_id, name: a.reviewer_name } : null,
+        signOff: s ? toSignOff(s) : null,
+      };
+    });
+    // Level names the schedule used that are not (or no longer) the project's levels.
+    for (const g of levelGroups.filter((g) => g.present && g.level_id === null).sort((a, b) => (a.level_name ?? '').localeCompare(b.level_name ?? ''))) {
+      levelRows.push({ level: { id: null, name: g.level_name ?? '' }, ...toCounts(g), assignedReviewer: null, signOff: null });
+    }
+    const gone = levelGroups.find((g) => g.present === false);
+    if (gone) levelRows.push({ level: null, ...toCounts(gone), assignedReviewer: null, signOff: null });
+
+    const reviewerGroups = groups.filter((g) => g.grp === 'reviewer');
+    const named = reviewerGroups.filter((g) => g.present && g.reviewer_id !== null).sort(byName);
+    const reviewerRows: OverviewReviewerRow[] = [
+      ...named,
+      ...reviewerGroups.filter((g) => g.present && g.reviewer_id === null),
+      ...reviewerGroups.filter((g) => g.present === false),
+    ].map((g) => ({
+      reviewer: g.reviewer_id !== null ? { id: g.reviewer_id, name: g.reviewer_name ?? '', email: g.reviewer_email ?? '' } : null,
+      present: g.present !== false,
+      ...toCounts(g),
+    }));
+
+    const total = groups.find((g) => g.grp === 'total');
+    return {
+      project: { id: project.id, name: project.name, number: project.number },
+      latestRevision: latest ? toOverviewRevision(latest) : null,
+      totals: toCounts(total ?? EMPTY_COUNTS),
+      levels: levelRows,
+      reviewers: reviewerRows,
+      today,
+    };
+  }
+
+  async flagsOverTime(access: ProjectAccess, days: number): Promise<FlagsOverTime> {
+    const points = await this.repo.flagsOverTime(access.projectId, days);
+    return { from: points[0]?.day ?? '', to: points[points.length - 1]?.day ?? '', points };
+  }
+}
+
+function byName(a: OverviewGroupRow, b: OverviewGroupRow): number {
+  return (a.reviewer_name ?? '').localeCompare(b.reviewer_name ?? '') || (a.reviewer_id ?? 0) - (b.reviewer_id ?? 0);
+}
