@@ -9,6 +9,7 @@ import { FlagsModule } from './flags/flags.module';
 import { HealthModule } from './health/health.module';
 import { ImportsModule } from './imports/imports.module';
 import { InvitationsModule } from './invitations/invitations.module';
+import { DigestModule } from './mail/digest/digest.module';
 import { MailModule } from './mail/mail.module';
 import { MembersModule } from './members/members.module';
 import { OverviewModule } from './overview/overview.module';
@@ -32,6 +33,7 @@ export class AppModule {
         InvitationsModule,
         ActivityModule,
         MailModule,
+        DigestModule,
         HealthModule,
         ImportsModule, ExportsModule,
         FlagsModule, MembersModule,

@@ -3,6 +3,9 @@
  *   node api/dist/cli.js seed-demo   import samples/halvercote-yard.xlsx as revision 1 of the
  *                                    demo project, when it has no revision yet (after the
  *                                    database seed: node database/dist/src/cli.js seed)
+ *   node api/dist/cli.js send-digest [YYYY-MM-DD]
+ *                                    write and send the daily digest of that day (default today,
+ *                                    UTC) now; people already sent that day's digest get none
  */
 import 'reflect-metadata';
 import { Module, type DynamicModule } from '@nestjs/common';
@@ -14,8 +17,11 @@ import { ConfigModule } from './config/config.module';
 import { DbModule } from './db/db.module';
 import { seedDemoRevision } from './imports/demo-seed';
 import { ImportsModule } from './imports/imports.module';
+import { DigestModule } from './mail/digest/digest.module';
+import { DigestService } from './mail/digest/digest.service';
+import { OutboxService } from './mail/outbox.service';
 
-const COMMANDS = ['seed-demo'] as const;
+const COMMANDS = ['seed-demo', 'send-digest'] as const;
 type Command = (typeof COMMANDS)[number];
 
 const say = (msg: string) => process.stderr.write(`[api] ${msg}\n`);
@@ -24,7 +30,7 @@ const say = (msg: string) => process.stderr.write(`[api] ${msg}\n`);
 @Module({})
 class CliModule {
   static forRoot(config: AppConfig): DynamicModule {
-    return { module: CliModule, imports: [ConfigModule.forRoot(config), DbModule, AuthModule, ActivityModule, ImportsModule] };
+    return { module: CliModule, imports: [ConfigModule.forRoot(config), DbModule, AuthModule, ActivityModule, ImportsModule, DigestModule] };
   }
 }
 
@@ -35,9 +41,18 @@ async function run(command: Command): Promise<void> {
   const app = await NestFactory.createApplicationContext(CliModule.forRoot(config), { logger: ['error', 'warn'] });
   try {
     if (command === 'seed-demo') say(`seed-demo: ${await seedDemoRevision(app)}`);
+    if (command === 'send-digest') say(`send-digest: ${await sendDigest(app, process.argv[3])}`);
   } finally {
     await app.close();
   }
+}
+
+/** The digest of `day` (default today, UTC), written and sent before the command ends. */
+async function sendDigest(app: Awaited<ReturnType<typeof NestFactory.createApplicationContext>>, day?: string): Promise<string> {
+  if (day !== undefined && !/^\d{4}-\d{2}-\d{2}$/.test(day)) throw new Error(`"${day}" is not a day written YYYY-MM-DD; leave it out for today (UTC)`);
+  const r = await app.get(DigestService).run(day);
+  await app.get(OutboxService).settle();
+  return `${r.date}: ${r.queued} digest(s) queued and sent, ${r.nothingWaiting} with nothing waiting, ${r.off} turned off, ${r.alreadySent} sent before (unsent ones stay queued for the api's retry)`;
 }
 
 function main(): void {

@@ -36,6 +36,8 @@ type Handler = (job: JobContext<unknown>) => Promise<void>;
 export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
   private readonly logger = new Logger('jobs');
   private readonly handlers = new Map<string, Handler>();
+  /** Queue name → cron expression (UTC) of jobs pg-boss sends on a timetable. */
+  private readonly schedules = new Map<string, string>();
   private boss: PgBoss | null = null;
   private starting: Promise<PgBoss> | null = null;
   private closed = false;
@@ -48,6 +50,15 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
   /** Registers the handler of a queue. A handler that throws is retried (SendOptions.retryLimit). */
   register<T>(name: string, handler: (job: JobContext<T>) => Promise<void>): void {
     this.handlers.set(name, handler as Handler);
+  }
+
+  /**
+   * Sends a job to `name` on a timetable (cron, UTC), from whichever worker
+   * process holds pg-boss's clock; the schedule lives in the database, so
+   * several processes send it once. Register the handler too.
+   */
+  schedule(name: string, cron: string): void {
+    this.schedules.set(name, cron);
   }
 
   async onApplicationBootstrap(): Promise<void> {
@@ -71,6 +82,7 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
         for (const job of jobs) await handler({ id: job.id, data: job.data, retryCount: job.retryCount });
       });
     }
+    for (const [name, cron] of this.schedules) await boss.schedule(name, cron, {}, { tz: 'UTC' });
   }
 
   /** Queues a job; returns its id. */
@@ -101,7 +113,8 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
         application_name: 'sagline-jobs',
         supervise: this.settings.worker,
         maintenanceIntervalSeconds: this.settings.maintenanceSeconds,
-        schedule: false,
+        // The clock that sends scheduled jobs runs only in worker processes that have schedules.
+        schedule: this.settings.worker && this.schedules.size > 0,
       });
       boss.on('error', (e: Error) => this.logger.error(`job queue: ${e.message}`));
       try {

@@ -1,10 +1,11 @@
 import { Module } from '@nestjs/common';
+import { PreferencesController } from './preferences.controller';
 import { UsersController } from './users.controller';
 import { UsersRepository } from './users.repository';
 import { UsersService } from './users.service';
 
 @Module({
-  controllers: [UsersController],
+  controllers: [UsersController, PreferencesController],
   providers: [UsersRepository, UsersService],
   exports: [UsersRepository],
 })

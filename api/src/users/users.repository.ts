@@ -31,6 +31,13 @@ export class UsersRepository {
     return row;
   }
 
+  /** `daily` keeps a weekly digest weekly: only off → on picks daily. */
+  async setDigest(id: number, digest: 'off' | 'daily'): Promise<void> {
+    const q = this.knex('users').where({ id });
+    if (digest === 'daily') q.where('digest', 'off');
+    await q.update({ digest, updated_at: this.knex.fn.now() });
+  }
+
   async setPassword(trx: Trx, id: number, passwordHash: string, name?: string): Promise<void> {
     await trx('users')
       .where({ id })

@@ -1,5 +1,6 @@
 import { Injectable } from '@nestjs/common';
-import type { Me } from '@sagline/common/api-types';
+import type { Me, Preferences, UpdatePreferencesRequest } from '@sagline/common/api-types';
+import { ApiError } from '../common/api-error';
 import { toMe } from './users.mapper';
 import { UsersRepository } from './users.repository';
 
@@ -9,5 +10,18 @@ export class UsersService {
 
   async listAll(): Promise<Me[]> {
     return (await this.users.listAll()).map(toMe);
+  }
+
+  /** The digest is on unless the person turned it off (a weekly digest counts as on). */
+  async preferences(userId: number): Promise<Preferences> {
+    const row = await this.users.findById(userId);
+    if (!row) throw new ApiError('UNAUTHENTICATED', 'Your account no longer exists; sign in again.');
+    return { digest: row.digest !== 'off' };
+  }
+
+  /** Turning the digest on makes it daily, unless it is on already (a weekly one stays weekly). */
+  async updatePreferences(userId: number, change: UpdatePreferencesRequest): Promise<Preferences> {
+    await this.users.setDigest(userId, change.digest ? 'daily' : 'off');
+    return this.preferences(userId);
   }
 }

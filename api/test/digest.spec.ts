@@ -1,0 +1,215 @@
+import net from 'node:net';
+import { randomUUID } from 'node:crypto';
+import type { DigestRunReport, FlagDetail, MailboxMessage } from '@sagline/common/api-types';
+import { JobQueue } from '../src/jobs/job-queue';
+import { startFakeSmtp, type FakeSmtp } from '../src/mail/fake-smtp';
+import { DIGEST_QUEUE } from '../src/mail/digest/digest.tokens';
+import { utcDay } from '../src/mail/digest/digest.service';
+import { ApiClient } from './support/api-client';
+import { expectError } from './support/expect-error';
+import { Factories, PASSWORD, type TestProject, type TestUser } from './support/factories';
+import { MembersFactory } from './support/members-factory';
+import { TestApp, TEST_PUBLIC_URL } from './support/test-app';
+
+const DAY = '2026-12-10';
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.once('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+const digests = (messages: MailboxMessage[]) => messages.filter((m) => /Sagline digest/.test(m.subject));
+
+/**
+ * Two projects. Rafe (engineer on both) holds three open flags, one overdue
+ * on the digest's day; Priya (checker) raised a flag that Ines answered, so
+ * it waits on Priya to close; Ines has an open flag but turned her digest
+ * off; the manager has nothing waiting; a closed flag waits on nobody.
+ */
+async function scenario(t: TestApp) {
+  const make = new Factories(t.knex);
+  const admin = await make.user({ name: 'Ada Brennick', isAdmin: true });
+  const checker = await make.user({ name: 'Priya Castellanos' });
+  const rafe = await make.user({ name: 'Rafe Lindqvist' });
+  const ines = await make.user({ name: 'Ines Okafor' });
+  const manager = await make.user({ name: 'Mireille Fontaine' });
+  const yard = await make.project({ name: 'Halvercote Yard', team: [[checker, 'checker'], [rafe, 'engineer'], [ines, 'engineer'], [manager, 'manager']] });
+  const annex = await make.project({ name: 'Halvercote Annex', team: [[checker, 'checker'], [rafe, 'engineer']] });
+  const members = new MembersFactory(t);
+  await members.revision(yard.id, rafe.id, ['B1', 'B2', 'B3', 'B4', 'B5', 'B6'].map((mark) => ({ mark, I: 20 })));
+  await members.revision(annex.id, rafe.id, [{ mark: 'A1', I: 20 }]);
+  const c = {
+    admin: await ApiClient.signedIn(t.http, admin.email, PASSWORD),
+    checker: await ApiClient.signedIn(t.http, checker.email, PASSWORD),
+    rafe: await ApiClient.signedIn(t.http, rafe.email, PASSWORD),
+    ines: await ApiClient.signedIn(t.http, ines.email, PASSWORD),
+    manager: await ApiClient.signedIn(t.http, manager.email, PASSWORD),
+  };
+  const raise = async (project: TestProject, mark: string, assignee: TestUser, dueDate: string | null): Promise<FlagDetail> => {
+    const res = await c.checker.post(`/api/projects/${project.id}/flags`, { mark, assigneeId: assignee.id, dueDate });
+    if (res.status !== 201) throw new Error(`raise ${mark}: ${res.status} ${JSON.stringify(res.body)}`);
+    return res.body;
+  };
+  const flags = {
+    later: await raise(yard, 'B2', rafe, '2026-12-20'),
+    overdue: await raise(yard, 'B1', rafe, '2026-12-08'),
+    annex: await raise(annex, 'A1', rafe, null),
+    answered: await raise(yard, 'B3', ines, '2026-12-01'),
+    closed: await raise(yard, 'B4', rafe, '2026-12-01'),
+    inesOpen: await raise(yard, 'B5', ines, '2026-12-01'),
+  };
+  const answered = await c.ines.post(`/api/projects/${yard.id}/flags/${flags.answered.id}/answer`, { version: flags.answered.version, body: 'Deeper joist, see revision 2.' });
+  expect(answered.status).toBe(200);
+  expect((await c.checker.post(`/api/projects/${yard.id}/flags/${flags.closed.id}/close`, { version: flags.closed.version })).status).toBe(200);
+  expect((await c.ines.patch('/api/me/preferences', { digest: false })).body).toEqual({ digest: false });
+  await t.outbox.settle();
+  t.mail?.clear();
+  return { admin, checker, rafe, ines, manager, yard, annex, c, flags };
+}
+
+describe('the daily digest', () => {
+  let t: TestApp;
+  let s: Awaited<ReturnType<typeof scenario>>;
+
+  beforeAll(async () => {
+    t = await TestApp.start();
+    s = await scenario(t);
+  });
+  afterAll(() => t.close());
+
+  it('e-mails each person what waits on them across their projects, overdue first', async () => {
+    const res = await s.c.admin.post('/api/digests/send', { date: DAY });
+    expect(res.status).toBe(200);
+    expect(res.body as DigestRunReport).toEqual({ date: DAY, queued: 2, nothingWaiting: 2, off: 1, alreadySent: 0 });
+
+    const mail = digests(await t.mailbox());
+    expect(mail.map((m) => m.to[0]).sort()).toEqual([s.checker.email, s.rafe.email].sort());
+
+    const rafe = mail.find((m) => m.to.includes(s.rafe.email))!;
+    expect(rafe.subject).toBe(`3 flags wait on you (1 overdue): Sagline digest ${DAY}`);
+    const link = (projectId: number, flagId: number) => `${TEST_PUBLIC_URL}/projects/${projectId}/flags/${flagId}`;
+    expect(rafe.text).toBe(
+      [
+        'Good morning Rafe,',
+        '',
+        `3 flags wait on you on Sagline today (${DAY}), 1 overdue.`,
+        '',
+        'Overdue (1)',
+        `- Halvercote Yard · B1: ${s.flags.overdue.title} (due 2026-12-08, 2 days overdue; assigned to you, open)`,
+        `  ${link(s.yard.id, s.flags.overdue.id)}`,
+        '',
+        'Assigned to you: answer once the member is resolved (2)',
+        `- Halvercote Yard · B2: ${s.flags.later.title} (due 2026-12-20; assigned to you, open)`,
+        `  ${link(s.yard.id, s.flags.later.id)}`,
+        `- Halvercote Annex · A1: ${s.flags.annex.title} (no due date; assigned to you, open)`,
+        `  ${link(s.annex.id, s.flags.annex.id)}`,
+        '',
+        `You get this digest each day something waits on you. Turn it off on your Account page: ${TEST_PUBLIC_URL}/account`,
+      ].join('\n') + '\n',
+    );
+    // The closed flag (B4) waits on nobody.
+    expect(rafe.text).not.toContain('B4');
+
+    const priya = mail.find((m) => m.to.includes(s.checker.email))!;
+    expect(priya.subject).toBe(`1 flag waits on you (1 overdue): Sagline digest ${DAY}`);
+    expect(priya.text).toContain(`- Halvercote Yard · B3: ${s.flags.answered.title} (due 2026-12-01, 9 days overdue; answered by Ines Okafor, waiting for you to close or reopen)`);
+    expect(priya.text).not.toContain('B5');
+  });
+
+  it('sends nobody the same day twice, however often it runs', async () => {
+    const again = await s.c.admin.post('/api/digests/send', { date: DAY });
+    expect(again.body).toEqual({ date: DAY, queued: 0, nothingWaiting: 2, off: 1, alreadySent: 2 });
+    const both = await Promise.all([s.c.admin.post('/api/digests/send', { date: '2026-12-11' }), s.c.admin.post('/api/digests/send', { date: '2026-12-11' })]);
+    expect(both[0].body.queued + both[1].body.queued).toBe(2);
+    const mail = digests(await t.mailbox());
+    expect(mail.filter((m) => m.subject.endsWith(DAY))).toHaveLength(2);
+    expect(mail.filter((m) => m.subject.endsWith('2026-12-11'))).toHaveLength(2);
+    expect(await t.knex('digest_log').count<{ count: string }[]>('* as count').first()).toEqual({ count: '4' });
+  });
+
+  it('sends a person who turns the digest back on their next one', async () => {
+    expect((await s.c.ines.get('/api/me/preferences')).body).toEqual({ digest: false });
+    expect((await s.c.ines.patch('/api/me/preferences', { digest: true })).body).toEqual({ digest: true });
+    expect((await s.c.ines.get('/api/me/preferences')).body).toEqual({ digest: true });
+    const res = await s.c.admin.post('/api/digests/send', { date: '2026-12-12' });
+    expect(res.body).toMatchObject({ queued: 3, off: 0 });
+    const ines = digests(await t.mailbox()).filter((m) => m.to.includes(s.ines.email));
+    expect(ines).toHaveLength(1);
+    expect(ines[0].text).toContain('B5');
+    expect(ines[0].text).not.toContain('B3');
+  });
+
+  it('keeps preferences and the digest route to whom they belong, and refuses bad input', async () => {
+    expectError(await new ApiClient(t.http).get('/api/me/preferences'), 401, 'UNAUTHENTICATED');
+    expectError(await s.c.rafe.patch('/api/me/preferences', { digest: 'sometimes' }), 400, 'VALIDATION_FAILED', /digest: must be true .* or false/);
+    expectError(await s.c.rafe.patch('/api/me/preferences', { digest: false, admin: true }), 400, 'VALIDATION_FAILED');
+    expectError(await s.c.manager.post('/api/digests/send', {}), 403, 'FORBIDDEN');
+    expectError(await s.c.admin.post('/api/digests/send', { date: '10/12/2026' }), 400, 'VALIDATION_FAILED', /date: must be a calendar date written YYYY-MM-DD/);
+    expect((await s.c.rafe.get('/api/me/preferences')).body).toEqual({ digest: true });
+  });
+
+  it('is scheduled every day at 07:00 UTC, and the scheduled job writes the digest of the day', async () => {
+    const queue = t.app.get(JobQueue);
+    // The worker registers the schedule once pg-boss has started.
+    let schedule: { cron: string; options: { tz?: string } } | undefined;
+    for (let i = 0; i < 100 && !schedule; i++) {
+      schedule = await t.knex('pgboss.schedule').where({ name: DIGEST_QUEUE }).first().catch(() => undefined);
+      if (!schedule) await new Promise((r) => setTimeout(r, 100));
+    }
+    expect(schedule).toMatchObject({ cron: '0 7 * * *', options: { tz: 'UTC' } });
+
+    // What pg-boss's clock does at 07:00: send a job to the queue; the worker runs the digest of today.
+    await queue.send(DIGEST_QUEUE, {}, { id: randomUUID(), retryLimit: 2, expireInSeconds: 60 });
+    const today = utcDay();
+    let done = 0;
+    for (let i = 0; i < 150 && done < 3; i++) {
+      done = Number((await t.knex('digest_log').where({ day: today }).count<{ count: string }[]>('* as count').first())!.count);
+      if (done < 3) await new Promise((r) => setTimeout(r, 100));
+    }
+    expect(done).toBe(3);
+    const mail = digests(await t.mailbox()).filter((m) => m.subject.endsWith(today));
+    expect(mail.map((m) => m.to[0]).sort()).toEqual([s.checker.email, s.ines.email, s.rafe.email].sort());
+  });
+});
+
+describe('the digest when SMTP is down', () => {
+  let t: TestApp;
+  let fake: FakeSmtp | null = null;
+  let smtpPort: number;
+
+  beforeAll(async () => {
+    smtpPort = await freePort();
+    t = await TestApp.start({ withoutSmtp: true, quiet: true, env: { SMTP_URL: `smtp://127.0.0.1:${smtpPort}` } });
+  });
+  afterAll(async () => {
+    await t.close();
+    await fake?.close();
+  });
+
+  it('keeps the digests queued, and delivers each exactly once when SMTP is back', async () => {
+    const s = await scenario(t);
+    expect((await s.c.admin.post('/api/digests/send', { date: DAY })).body).toMatchObject({ queued: 2 });
+    await t.outbox.settle();
+    const queued = await t.knex('outbound_mail').where('subject', 'like', '%Sagline digest%').orderBy('id');
+    expect(queued.map((m) => [m.to, m.status, m.attempts])).toEqual(
+      expect.arrayContaining([[s.rafe.email, 'queued', 1], [s.checker.email, 'queued', 1]]),
+    );
+    // A second run while SMTP is down adds nothing.
+    expect((await s.c.admin.post('/api/digests/send', { date: DAY })).body).toMatchObject({ queued: 0, alreadySent: 2 });
+
+    fake = await startFakeSmtp({ smtpPort, httpPort: 0 });
+    const later = new Date(Date.now() + 4 * 3_600_000);
+    const [a, b] = await Promise.all([t.outbox.flushOutbox(later), t.outbox.flushOutbox(later)]);
+    expect(a.sent + b.sent).toBeGreaterThanOrEqual(2);
+    await t.outbox.flushOutbox(later);
+    const got = digests(fake.messages());
+    expect(got.map((m) => m.to[0]).sort()).toEqual([s.checker.email, s.rafe.email].sort());
+    expect(await t.knex('outbound_mail').where('subject', 'like', '%Sagline digest%').pluck('status')).toEqual(['sent', 'sent']);
+  });
+});
