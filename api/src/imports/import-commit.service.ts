@@ -6,6 +6,8 @@ import { LimitSetsService } from '../checks/limit-sets.service';
 import { OverviewRevisionHook } from '../overview/overview-revision-hook';
 import { ApiError, notFound } from '../common/api-error';
 import { TransactionRunner } from '../db/transaction';
+import type { RevisionNotesResult } from '../flags/flag-revision-notes';
+import { FlagsService } from '../flags/flags.service';
 import { toRevisionSummary } from '../revisions/revisions.mapper';
 import { RevisionsRepository, type MemberToWrite, type StoredDiff } from '../revisions/revisions.repository';
 import { DraftCache } from './draft-cache';
@@ -48,6 +50,7 @@ export class ImportCommitService {
     private readonly tx: TransactionRunner,
     private readonly cache: DraftCache,
     private readonly overview: OverviewRevisionHook,
+    private readonly flags: FlagsService,
   ) {}
 
   async commit(projectId: number, draftId: string, options: CommitOptions): Promise<CommitImportResponse> {
@@ -82,6 +85,7 @@ export class ImportCommitService {
       analysis: outcome.analyses[i],
     }));
 
+    let flagNotes: RevisionNotesResult | null = null;
     const revision = await this.tx.run(async (trx) => {
       progress(0.3, 'Waiting for other commits of this project');
       if (!(await this.revisions.lockProject(trx, projectId))) throw notFound(`Project ${projectId} was not found.`);
@@ -126,6 +130,12 @@ export class ImportCommitService {
       await this.revisions.insertMembers(trx, revisionId, toWrite, (rows, all) => progress(0.35 + (0.6 * rows) / all, 'Writing members and results'));
       // Reviewer assignments reach the new members; sign-offs of levels this revision touched are voided.
       await this.overview.onRevisionCommitted(trx, projectId, { id: revisionId, number }, diff);
+      // Flags of changed, flipped or removed members get an automatic note (api/src/flags/README.md).
+      flagNotes = await this.flags.onRevisionCommitted(trx, projectId, revisionId, [
+        ...diff.changed.map((c) => ({ mark: c.mark, verdictBefore: c.verdictBefore, verdictAfter: c.verdict, removed: false, changedFields: c.changes.map((f) => f.label) })),
+        ...diff.flips.map((f) => ({ mark: f.mark, verdictBefore: f.from, verdictAfter: f.to, removed: false })),
+        ...diff.removed.map((r) => ({ mark: r.mark, verdictBefore: r.verdict, verdictAfter: null, removed: true })),
+      ]);
       await this.activity.record(trx, {
         projectId,
         actorId: options.actorId,
@@ -138,6 +148,8 @@ export class ImportCommitService {
       progress(0.97, 'Saving');
       return (await this.revisions.findBySourceDraft(trx, draftId))!;
     });
+    // The notes' e-mails go once the revision is committed, never for a rolled-back one.
+    if (flagNotes) this.flags.deliverRevisionNotes(flagNotes);
     progress(1, 'Done');
     return { revision: toRevisionSummary(revision) };
   }

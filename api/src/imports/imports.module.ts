@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { ActivityModule } from '../activity/activity.module';
 import { ChecksModule } from '../checks/checks.module';
+import { FlagsModule } from '../flags/flags.module';
 import { JobsModule } from '../jobs/jobs.module';
 import { OverviewModule } from '../overview/overview.module';
 import { RevisionsModule } from '../revisions/revisions.module';
@@ -16,7 +17,7 @@ import { UploadInterceptor } from './upload.interceptor';
 
 /** Schedule imports: template downloads, upload → checked draft → revision (inline or as a background job). */
 @Module({
-  imports: [ActivityModule, ChecksModule, RevisionsModule, JobsModule, OverviewModule],
+  imports: [ActivityModule, ChecksModule, RevisionsModule, JobsModule, OverviewModule, FlagsModule],
   controllers: [ImportsController],
   providers: [
     { provide: ImportSettings, useFactory: () => parseImportSettings(process.env) },
