@@ -127,7 +127,7 @@ export class ImportCommitService {
         sourceDraftId: draftId,
       });
       progress(0.35, 'Writing members and results');
-      await this.revisions.insertMembers(trx, revisionId, toWrite, (rows, all) => progress(0.35 + (0.6 * rows) / all, 'Writing members and results'));
+      await this.drafts.writeMembers(trx, revisionId, toWrite, (rows, all) => progress(0.35 + (0.6 * rows) / all, 'Writing members and results'));
       // Reviewer assignments reach the new members; sign-offs of levels this revision touched are voided.
       await this.overview.onRevisionCommitted(trx, projectId, { id: revisionId, number }, diff);
       // Flags of changed, flipped or removed members get an automatic note (api/src/flags/README.md).
