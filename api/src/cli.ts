@@ -2,7 +2,8 @@
  * The api's command line (built to api/dist/cli.js; reads DATABASE_URL):
  *   node api/dist/cli.js seed-demo   import samples/halvercote-yard.xlsx as revision 1 of the
  *                                    demo project, when it has no revision yet (after the
- *                                    database seed: node database/dist/src/cli.js seed)
+ *                                    database seed: node database/dist/src/cli.js seed), then
+ *                                    raise demo flags at every stage when it has none yet
  *   node api/dist/cli.js send-digest [YYYY-MM-DD]
  *                                    write and send the daily digest of that day (default today,
  *                                    UTC) now; people already sent that day's digest get none
@@ -15,6 +16,8 @@ import { AuthModule } from './auth/auth.module';
 import { ConfigError, parseConfig, type AppConfig } from './config/app-config';
 import { ConfigModule } from './config/config.module';
 import { DbModule } from './db/db.module';
+import { seedDemoFlags } from './flags/demo-flags';
+import { FlagsModule } from './flags/flags.module';
 import { seedDemoRevision } from './imports/demo-seed';
 import { ImportsModule } from './imports/imports.module';
 import { DigestModule } from './mail/digest/digest.module';
@@ -30,7 +33,7 @@ const say = (msg: string) => process.stderr.write(`[api] ${msg}\n`);
 @Module({})
 class CliModule {
   static forRoot(config: AppConfig): DynamicModule {
-    return { module: CliModule, imports: [ConfigModule.forRoot(config), DbModule, AuthModule, ActivityModule, ImportsModule, DigestModule] };
+    return { module: CliModule, imports: [ConfigModule.forRoot(config), DbModule, AuthModule, ActivityModule, ImportsModule, FlagsModule, DigestModule] };
   }
 }
 
@@ -40,7 +43,12 @@ async function run(command: Command): Promise<void> {
   const config = parseConfig(process.env);
   const app = await NestFactory.createApplicationContext(CliModule.forRoot(config), { logger: ['error', 'warn'] });
   try {
-    if (command === 'seed-demo') say(`seed-demo: ${await seedDemoRevision(app)}`);
+    if (command === 'seed-demo') {
+      say(`seed-demo: ${await seedDemoRevision(app)}`);
+      say(`seed-demo: ${await seedDemoFlags(app)}`);
+      // The flags' e-mails: one attempt now; what fails stays queued for the api's retry.
+      await app.get(OutboxService).settle();
+    }
     if (command === 'send-digest') say(`send-digest: ${await sendDigest(app, process.argv[3])}`);
   } finally {
     await app.close();

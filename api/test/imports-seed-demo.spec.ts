@@ -31,14 +31,24 @@ describe('cli seed-demo', () => {
 
   it('says there is nothing to do before the database seed', () => {
     const r = seedDemoCli(db.url);
-    expect(r).toEqual({ status: 0, stderr: `[api] seed-demo: no project ${DEMO_PROJECT.number} (run the database seed first): nothing imported\n` });
+    expect(r).toEqual({
+      status: 0,
+      stderr:
+        `[api] seed-demo: no project ${DEMO_PROJECT.number} (run the database seed first): nothing imported\n` +
+        `[api] seed-demo: no project ${DEMO_PROJECT.number}: no flags raised\n`,
+    });
   });
 
-  it('imports the demo workbook as revision 1 through the import code, once', async () => {
+  it('imports the demo workbook as revision 1 through the import code, then raises flags at every stage, once', async () => {
     await seedDemo(knex);
     const first = seedDemoCli(db.url);
     expect(first.status).toBe(0);
-    expect(first.stderr).toMatch(/^\[api\] seed-demo: imported halvercote-yard\.xlsx into Halvercote Yard as revision 1 \(uploaded by Kasimir Oduya\): 391 members, \d+ failing\n$/);
+    expect(first.stderr).toMatch(
+      new RegExp(
+        '^\\[api\\] seed-demo: imported halvercote-yard\\.xlsx into Halvercote Yard as revision 1 \\(uploaded by Kasimir Oduya\\): 391 members, \\d+ failing\n' +
+          `\\[api\\] seed-demo: raised 6 demo flags on revision 1 of project ${DEMO_PROJECT.number} \\(open, overdue, answered, closed, waived, unassigned\\)\n$`,
+      ),
+    );
 
     const revision = await knex('revisions as r').join('users as u', 'u.id', 'r.uploaded_by').first('r.number', 'r.member_count', 'r.fail_count', 'r.file_name', 'u.email');
     expect(revision).toMatchObject({ number: 1, member_count: 391, file_name: 'halvercote-yard.xlsx', email: 'kasimir.oduya@halvercote.example' });
@@ -48,8 +58,24 @@ describe('cli seed-demo', () => {
     expect(counts).toEqual({ members: '391', reviewers: '3' });
     expect(await knex('activity').where({ action: 'import.committed' }).count('* as n').first()).toEqual({ n: '1' });
 
+    // Flags at every stage, on failing members, with their history (demo-flags.ts).
+    const flags = await knex('flags').select('status').count('* as n').groupBy('status').orderBy('status');
+    expect(flags).toEqual([
+      { status: 'answered', n: '1' },
+      { status: 'closed', n: '1' },
+      { status: 'open', n: '3' },
+      { status: 'waived', n: '1' },
+    ]);
+    expect(await knex('flags').whereNotNull('due_date').where('due_date', '<', knex.raw('current_date')).whereIn('status', ['open', 'answered']).count('* as n').first()).toEqual({ n: '1' });
+
     const again = seedDemoCli(db.url);
-    expect(again).toEqual({ status: 0, stderr: '[api] seed-demo: Halvercote Yard already has a revision: nothing imported\n' });
+    expect(again).toEqual({
+      status: 0,
+      stderr:
+        '[api] seed-demo: Halvercote Yard already has a revision: nothing imported\n' +
+        `[api] seed-demo: project ${DEMO_PROJECT.number} has flags already: none raised\n`,
+    });
     expect(await knex('revisions').count('* as n').first()).toEqual({ n: '1' });
+    expect(await knex('flags').count('* as n').first()).toEqual({ n: '6' });
   }, 120_000);
 });
