@@ -4,7 +4,8 @@ import { CheckCircleFilled, ExclamationCircleFilled } from '@ant-design/icons';
 import type { MemberDetail, MemberResultView } from '@sagline/common/api-types';
 import { formatQuantity, type UnitSystemId } from '@sagline/common/units';
 import { palette } from '@/app/theme';
-import { combinationFormula, loadWords, sameDeflection, segmentName, signedDeflection } from './member-words';
+import { unitText } from './member-labels';
+import { combinationFormula, deflectionDecimals, loadWords, sameDeflection, segmentName, signedDeflection } from './member-words';
 
 interface ContributionRow {
   key: number;
@@ -58,6 +59,12 @@ export function ContributionsTable({ detail, result }: { detail: MemberDetail; r
   const formula = combinationFormula(detail.beamInput.combinations[combination]);
   const matches = sameDeflection(sum, result.deflection);
   const share = (v: number) => (sum !== 0 ? `${((v / sum) * 100).toFixed(1)} %` : '—');
+  // Does adding the printed lines give the printed sum? Not always, after rounding: then say so.
+  const decimals = deflectionDecimals(system);
+  const inUnit = (m: number) => Number(formatQuantity(m, 'deflection', system, { decimals, unitText: 'none', grouping: false }));
+  const printedLines = rows.reduce((s, r) => s + inUnit(r.contribution), 0);
+  const roundingShows = Math.abs(printedLines - inUnit(sum)) > 10 ** -decimals / 2;
+  const step = `${(10 ** -decimals).toFixed(decimals)} ${unitText('deflection', system)}`;
 
   return (
     <Table<ContributionRow>
@@ -71,7 +78,7 @@ export function ContributionsTable({ detail, result }: { detail: MemberDetail; r
         <Typography.Text>
           <Typography.Text strong>{result.checkName}</Typography.Text>, {where}: deflection at x ={' '}
           {formatQuantity(segment.extreme.x, 'position', system)} under {combination}
-          {formula && formula !== combination ? ` (${formula})` : ''}. Positive is up; a sagging member is negative.
+          {formula && !sameFormula(formula, combination) ? ` (${formula})` : ''}. Positive is up; a sagging member is negative.
         </Typography.Text>
       )}
       columns={[
@@ -129,10 +136,26 @@ export function ContributionsTable({ detail, result }: { detail: MemberDetail; r
               )}
             </Table.Summary.Cell>
           </Table.Summary.Row>
+          {roundingShows && (
+            <Table.Summary.Row>
+              <Table.Summary.Cell index={0} colSpan={7}>
+                <Typography.Text type="secondary" style={{ fontSize: 12 }}>
+                  Each line is rounded to {step}; the sum is of the unrounded values, so the printed lines add up to a
+                  slightly different last digit.
+                </Typography.Text>
+              </Table.Summary.Cell>
+            </Table.Summary.Row>
+          )}
         </Table.Summary>
       )}
     />
   );
+}
+
+/** "1 D + 1 L" says nothing more than a combination named "D+L". */
+function sameFormula(formula: string, name: string): boolean {
+  const bare = (t: string) => t.replace(/(^|[+\s])1 /g, '$1').replace(/\s+/g, '');
+  return bare(formula) === bare(name);
 }
 
 function Num({ children, strong }: { children: ReactNode; strong?: boolean }) {
