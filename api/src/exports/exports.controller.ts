@@ -22,3 +22,19 @@ export class ExportsController {
     res.end(file.bytes);
   }
 }
+
+/** The flags workbook: any member of the project may download it. */
+@Controller('projects/:projectId')
+export class FlagsExportController {
+  constructor(private readonly exportsService: ExportsService) {}
+
+  @Get('flags.xlsx')
+  @ProjectRole()
+  async flags(@CurrentProject() project: ProjectAccess, @Res() res: Response): Promise<void> {
+    const file = await this.exportsService.flags(project.projectId);
+    res.setHeader('Content-Type', XLSX_TYPE);
+    res.setHeader('Content-Disposition', attachment(file.fileName));
+    res.setHeader('Content-Length', String(file.bytes.length));
+    res.end(file.bytes);
+  }
+}

@@ -1,11 +1,11 @@
 import { Module } from '@nestjs/common';
-import { ExportsController } from './exports.controller';
+import { ExportsController, FlagsExportController } from './exports.controller';
 import { ExportsRepository } from './exports.repository';
 import { ExportsService } from './exports.service';
 
-/** Results (and later flags) as xlsx workbooks. */
+/** Results and flags as xlsx workbooks. */
 @Module({
-  controllers: [ExportsController],
+  controllers: [ExportsController, FlagsExportController],
   providers: [ExportsRepository, ExportsService],
 })
 export class ExportsModule {}

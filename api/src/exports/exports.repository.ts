@@ -1,6 +1,6 @@
 import { Inject, Injectable } from '@nestjs/common';
 import type { Knex } from '@sagline/database';
-import type { UnitSystem, Verdict } from '@sagline/common/api-types';
+import type { FlagStatus, UnitSystem, Verdict } from '@sagline/common/api-types';
 import type { LimitSet } from '@sagline/common/limits';
 import { KNEX } from '../db/db.tokens';
 
@@ -95,4 +95,89 @@ export class ExportsRepository {
         'effective_length', 'span_ratio', 'limit_ratio', 'max_abs', 'plus', 'allowed', 'utilization', 'pass', 'required_i',
       );
   }
+
+  /** The project and its latest revision (the member facts and limit sources a flags workbook shows). */
+  flagsProject(projectId: number): Promise<FlagsExportProject | undefined> {
+    return this.knex('projects as p')
+      .leftJoin('revisions as r', (j) =>
+        j.on('r.project_id', 'p.id').andOn('r.number', this.knex.raw('(select max(number) from revisions where project_id = p.id)')),
+      )
+      .where('p.id', projectId)
+      .first('p.name as project_name', 'p.number as project_number', 'r.id as revision_id', 'r.number as revision_number', 'r.limit_set');
+  }
+
+  /**
+   * Every flag of the project with its people, its member as the latest
+   * revision has it (matched by mark ignoring case), when it was closed (the
+   * last move to closed, while closed), and its last written comment (a
+   * comment, or the text of a raise, answer, close, reopen or waive).
+   * Overdue flags first, then open, answered, closed, waived; by due date, mark.
+   */
+  flags(projectId: number, latestRevisionId: number | null): Promise<FlagExportRow[]> {
+    const k = this.knex;
+    return k('flags as f')
+      .leftJoin('users as a', 'a.id', 'f.assignee_id')
+      .leftJoin('users as rb', 'rb.id', 'f.raised_by')
+      .leftJoin('revisions as rr', 'rr.id', 'f.raised_in_revision_id')
+      .leftJoin('members as m', (j) => j.on('m.revision_id', k.raw('?', [latestRevisionId ?? 0])).andOn(k.raw('lower(m.mark) = lower(f.mark)')))
+      .joinRaw(
+        `left join lateral (select e.created_at from flag_events e
+           where e.flag_id = f.id and e.kind = 'status' and e.to_status = 'closed' and f.status = 'closed'
+           order by e.id desc limit 1) as closed on true`,
+      )
+      .joinRaw(
+        `left join lateral (select e.body, e.created_at, u.name as actor_name from flag_events e left join users u on u.id = e.actor_id
+           where e.flag_id = f.id and e.kind in ('comment', 'status') and e.body is not null
+           order by e.id desc limit 1) as lc on true`,
+      )
+      .where('f.project_id', projectId)
+      .orderByRaw(
+        `${OVERDUE} desc, array_position(array['open', 'answered', 'closed', 'waived'], f.status), f.due_date nulls last, f.mark, f.id`,
+      )
+      .select(
+        'f.id', 'f.mark', 'f.check_name', 'f.title', 'f.status', k.raw(`to_char(f.due_date, 'YYYY-MM-DD') as due_date`),
+        k.raw(`${OVERDUE} as overdue`), k.raw(`case when ${OVERDUE} then (now() at time zone 'utc')::date - f.due_date end as days_overdue`),
+        'a.name as assignee_name', 'rb.name as raiser_name', 'f.created_at', 'f.updated_at', 'closed.created_at as closed_at',
+        'rr.number as raised_in_revision', 'm.level_name', 'm.category', 'm.material', 'm.verdict', 'm.max_utilization', 'm.governing_check',
+        'lc.body as last_comment', 'lc.actor_name as last_comment_by', 'lc.created_at as last_comment_at', 'f.waive_reason',
+      );
+  }
+}
+
+/** Open or answered with a due date before today (UTC), as the Flags screen decides it. */
+const OVERDUE = `coalesce(f.status in ('open', 'answered') and f.due_date < (now() at time zone 'utc')::date, false)`;
+
+export interface FlagsExportProject {
+  project_name: string;
+  project_number: string;
+  revision_id: number | null;
+  revision_number: number | null;
+  limit_set: LimitSet | null;
+}
+
+export interface FlagExportRow {
+  id: number;
+  mark: string;
+  check_name: string | null;
+  title: string;
+  status: FlagStatus;
+  due_date: string | null;
+  overdue: boolean;
+  days_overdue: number | null;
+  assignee_name: string | null;
+  raiser_name: string | null;
+  created_at: Date;
+  updated_at: Date;
+  closed_at: Date | null;
+  raised_in_revision: number | null;
+  level_name: string | null;
+  category: string | null;
+  material: string | null;
+  verdict: Verdict | null;
+  max_utilization: number | null;
+  governing_check: string | null;
+  last_comment: string | null;
+  last_comment_by: string | null;
+  last_comment_at: Date | null;
+  waive_reason: string | null;
 }
