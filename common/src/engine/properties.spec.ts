@@ -100,13 +100,15 @@ function withCombinations(input: BeamInput, combinations: BeamInput['combination
 
 /**
  * Two evaluations of one curve (the extreme from the combined curve, a
- * contribution from its load's own curve, a sampled point) agree to the
- * rounding of the stiffness solution. A 0.02 m element beside a 0.98 m one (stiffness terms
- * go as 1/L³) makes that solution about 1e5 times worse conditioned than
- * uniform elements, so 1e-12 of the deflection is too tight: a random run
- * (seed 1435476486) found 2.6e-12. 1e-10 still catches a lost or doubled load or a missed extreme.
+ * contribution from its load's own curve, a sampled point, a rerun with
+ * another I) agree to the rounding of the stiffness solution. Random members
+ * put nodes on a 1/100 grid, so an element can be 100 times shorter than its
+ * neighbour; stiffness terms go as 1/L³, which makes the solution up to ~1e6
+ * times worse conditioned than uniform elements. Random runs found 2.6e-12
+ * (seed 1435476486) and 6.9e-10 (seed 129) relative; 1e-9 still catches a lost
+ * or doubled load, a missed extreme or a wrong power of I.
  */
-const ROUNDING_TOL = 1e-10;
+const ROUNDING_TOL = 1e-9;
 
 describe('linearity and superposition', () => {
   it('a combination equals the factored sum of its cases, point by point', () => {
@@ -345,10 +347,15 @@ describe('the bulk fast path', () => {
     fc.assert(
       fc.property(memberArb, (input) => {
         const withCheck: BeamInput = { ...input, checks: [{ name: 't', combination: 'all', ratio: 360, maxAbs: 0.015 }] };
+        // A moment on a fixed support moves nothing in exact arithmetic but leaves
+        // its rounding (about 1e-16 of what it would move unrestrained) in the curve;
+        // beside a tiny load (seed 129: 41,044 N·m beside 1.37 N/m) that rounding is
+        // a visible share of a 1e-12 m deflection, and no relative tolerance holds.
+        fc.pre(!input.loads.some((l) => l.kind === 'moment' && input.supports.some((s) => s.kind === 'fixed' && s.x === l.x)));
         const seg = analyzeBeam(withCheck).checks[0].segments[0];
         fc.pre(seg.deflection !== 0);
         const again = analyzeBeam({ ...withCheck, I: seg.requiredI }).checks[0].segments[0];
-        expect(again.utilization).toBeCloseTo(1, 9);
+        expect(Math.abs(again.utilization - 1)).toBeLessThanOrEqual(ROUNDING_TOL);
       }),
       RUNS,
     );
