@@ -32,6 +32,11 @@ export const paths = {
     path: '/projects/:projectId/overview',
     getHref: (projectId: ProjectId) => `/projects/${projectId}/overview`,
   },
+  projectOverviewReport: {
+    /** The printable status report (no app chrome; the browser prints it to PDF). */
+    path: '/projects/:projectId/overview/report',
+    getHref: (projectId: ProjectId) => `/projects/${projectId}/overview/report`,
+  },
   projectMembers: {
     path: '/projects/:projectId/members',
     /**

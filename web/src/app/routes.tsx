@@ -1,5 +1,5 @@
 import type { ComponentType } from 'react';
-import { Navigate, type RouteObject } from 'react-router-dom';
+import { Navigate, Outlet, type RouteObject } from 'react-router-dom';
 import { PageLoading } from '@/components/page-loading';
 import { AppLayout } from './layout/app-layout';
 import { PublicLayout } from './layout/public-layout';
@@ -95,6 +95,21 @@ export const routes: RouteObject[] = [
                 lazy: lazyPage(() => import('@/features/team/pages/team-page'), (m) => m.TeamPage),
               },
             ],
+          },
+        ],
+      },
+      {
+        // Printable pages: signed in, without the app's top bar and navigation.
+        element: (
+          <RequireAuth>
+            <Outlet />
+          </RequireAuth>
+        ),
+        errorElement: <RouteError />,
+        children: [
+          {
+            path: paths.projectOverviewReport.path,
+            lazy: lazyPage(() => import('@/features/overview/pages/overview-report-page'), (m) => m.OverviewReportPage),
           },
         ],
       },
