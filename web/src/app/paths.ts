@@ -68,6 +68,12 @@ export const paths = {
     path: '/projects/:projectId/limit-sets',
     getHref: (projectId: ProjectId) => `/projects/${projectId}/limit-sets`,
   },
+  projectActivity: {
+    path: '/projects/:projectId/activity',
+    /** `query`: the feed's filters, named as the API's ActivityQuery (`kind=flags,sign-offs&actorId=4&from=2026-11-01`). */
+    getHref: (projectId: ProjectId, query: Record<string, string | undefined> = {}) =>
+      withQuery(`/projects/${projectId}/activity`, query),
+  },
   projectTeam: {
     path: '/projects/:projectId/team',
     getHref: (projectId: ProjectId) => `/projects/${projectId}/team`,

@@ -91,6 +91,10 @@ export const routes: RouteObject[] = [
                 lazy: lazyPage(() => import('@/features/limit-sets/pages/limit-sets-page'), (m) => m.LimitSetsPage),
               },
               {
+                path: paths.projectActivity.path,
+                lazy: lazyPage(() => import('@/features/activity/pages/activity-page'), (m) => m.ActivityPage),
+              },
+              {
                 path: paths.projectTeam.path,
                 lazy: lazyPage(() => import('@/features/team/pages/team-page'), (m) => m.TeamPage),
               },

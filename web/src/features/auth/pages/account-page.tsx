@@ -1,6 +1,7 @@
 import { Card, Descriptions, Flex, Tag, Typography } from 'antd';
 import { useCurrentUser } from '@/lib/current-user';
 import { ChangePasswordForm } from '../components/change-password-form';
+import { DigestSwitch } from '../components/digest-switch';
 
 export function AccountPage() {
   const me = useCurrentUser();
@@ -17,6 +18,9 @@ export function AccountPage() {
             {me.isAdmin ? <Tag color="purple">Administrator</Tag> : 'Roles are given per project'}
           </Descriptions.Item>
         </Descriptions>
+      </Card>
+      <Card title="E-mail">
+        <DigestSwitch />
       </Card>
       <Card title="Change password">
         <ChangePasswordForm />

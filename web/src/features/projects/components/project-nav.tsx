@@ -8,6 +8,7 @@ const SECTIONS = [
   { key: 'imports', label: 'Imports', href: paths.projectImports.getHref },
   { key: 'flags', label: 'Flags', href: paths.projectFlags.getHref },
   { key: 'limit-sets', label: 'Limit sets', href: paths.projectLimitSets.getHref },
+  { key: 'activity', label: 'Activity', href: paths.projectActivity.getHref },
   { key: 'team', label: 'Team', href: paths.projectTeam.getHref },
 ] as const;
 
