@@ -68,7 +68,7 @@ describe('the activity feed', () => {
     // Entries other areas write, on fixed days (the kinds and data keys of common/api-types/activity.ts).
     const level = project.levels[1];
     await t.knex('activity').insert([
-      { project_id: project.id, actor_id: manager.id, action: 'reviewer.assigned', summary: `Mireille Fontaine made Priya Castellanos reviewer of ${level.name}`, data: { levelId: level.id, levelName: level.name, userId: checker.id, userName: 'Priya Castellanos' }, created_at: '2026-11-02T09:00:00Z' },
+      { project_id: project.id, actor_id: manager.id, action: 'reviewer.assigned', summary: `Mireille Fontaine made Priya Castellanos reviewer of ${level.name}`, data: { levelId: level.id, levelName: level.name, userId: checker.id }, created_at: '2026-11-02T09:00:00Z' },
       { project_id: project.id, actor_id: checker.id, action: 'sign_off.signed', summary: `Priya Castellanos signed off ${level.name}`, data: { levelId: level.id, levelName: level.name }, created_at: '2026-11-03T23:59:59Z' },
       { project_id: project.id, actor_id: null, action: 'sign_off.voided', summary: `Revision 2 changed B7 on ${level.name}: its sign-off no longer holds`, data: { levelId: level.id, levelName: level.name, revisionId, revisionNumber: 2, marks: ['B7'] }, created_at: '2026-11-04T00:00:00Z' },
       { project_id: project.id, actor_id: manager.id, action: 'limit_set.applied', summary: 'Mireille Fontaine applied the limit set "Stiffer floors 100% L/480"', data: { limitSetId: 3, limitSetName: 'Stiffer floors 100% L/480' }, created_at: '2026-11-05T12:00:00Z' },

@@ -5,7 +5,7 @@ const int = (v: unknown): number | null => (typeof v === 'number' && Number.isIn
 const text = (v: unknown): string | null => (typeof v === 'string' && v.trim() !== '' ? v : null);
 
 /** The links an entry's data allows (flag, member mark, revision, level, person, limit set). */
-export function activityRefs(action: string, data: Record<string, unknown> | null): ActivityRefs {
+export function activityRefs(action: string, data: Record<string, unknown> | null, subjectName: string | null = null): ActivityRefs {
   const d = data ?? {};
   const refs: ActivityRefs = {};
   const flagIds = [int(d.flagId), ...(Array.isArray(d.flagIds) ? d.flagIds.map(int) : [])].filter((n): n is number => n !== null);
@@ -17,7 +17,7 @@ export function activityRefs(action: string, data: Record<string, unknown> | nul
   const levelName = text(d.levelName);
   if (levelName !== null) refs.level = { id: int(d.levelId), name: levelName };
   const userId = int(d.userId);
-  if (userId !== null) refs.user = { id: userId, name: text(d.userName) };
+  if (userId !== null) refs.user = { id: userId, name: text(d.userName) ?? subjectName };
   const limitSetId = int(d.limitSetId);
   const limitSetName = text(d.limitSetName);
   if (limitSetId !== null || limitSetName !== null) refs.limitSet = { id: limitSetId, name: limitSetName };
@@ -32,6 +32,6 @@ export function toActivityEntry(row: ActivityRow): ActivityEntry {
     action: row.action,
     kind: activityKindOf(row.action),
     summary: row.summary,
-    refs: activityRefs(row.action, row.data),
+    refs: activityRefs(row.action, row.data, row.subject_name),
   };
 }

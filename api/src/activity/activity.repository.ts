@@ -21,6 +21,8 @@ export interface ActivityRow {
   data: Record<string, unknown> | null;
   actor_id: number | null;
   actor_name: string | null;
+  /** The name of the person `data.userId` names (a reviewer given a level, someone added to the team). */
+  subject_name: string | null;
 }
 
 /** The feed's filters, already checked (ListActivityQuery). */
@@ -71,10 +73,11 @@ export class ActivityRepository {
   list(projectId: number, f: ActivityFilter, offset: number, limit: number): Promise<ActivityRow[]> {
     return this.filtered(projectId, f)
       .leftJoin('users as u', 'u.id', 'a.actor_id')
+      .leftJoin('users as su', 'su.id', this.knex.raw(`case when a.data->>'userId' ~ '^[0-9]{1,9}$' then (a.data->>'userId')::int end`))
       .orderBy([{ column: 'a.created_at', order: 'desc' }, { column: 'a.id', order: 'desc' }])
       .offset(offset)
       .limit(limit)
-      .select('a.id', 'a.created_at', 'a.action', 'a.summary', 'a.data', 'a.actor_id', 'u.name as actor_name');
+      .select('a.id', 'a.created_at', 'a.action', 'a.summary', 'a.data', 'a.actor_id', 'u.name as actor_name', 'su.name as subject_name');
   }
 
   async count(projectId: number, f: ActivityFilter): Promise<number> {
