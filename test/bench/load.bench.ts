@@ -1,0 +1,292 @@
+/**
+ * Load benchmark (a script, not a test), from the repository root, after `npm run build`:
+ *   npx tsx test/bench/load.bench.ts [--connections 50] [--seconds 10] [--keep]
+ *
+ * Builds a 10,000-member, 2,000-flag project in a throwaway database, starts
+ * the built api (`node api/dist/main.js`, NODE_ENV=production) on its own
+ * port, signs in (session cookie) and runs autocannon against the screens a
+ * manager opens most:
+ *   - a Members page:   GET /api/projects/:id/members?verdict=fail&sort=-utilization&page=2
+ *   - the flags summary: GET /api/projects/:id/flags/summary
+ *   - the Overview:      GET /api/projects/:id/overview
+ * each with 50 concurrent connections on loopback, after a short warm-up,
+ * and prints p50, p95 and p99 latency (from every response's own time) and
+ * requests per second. Target: p95 ≤ 50 ms.
+ *
+ * The project is made the way people make it: the schedule is uploaded and
+ * committed through the api (the import runs as its background job), the
+ * 2,000 flags are raised through the api's bulk raise (4 × 500 marks, each
+ * batch assigned to another reviewer); only their later statuses (answered,
+ * closed, waived, some overdue) are set in SQL, to spare 2,000 requests.
+ *
+ * PostgreSQL: DATABASE_URL's server when set, else a private cluster in
+ * .data/bench-load on port 54369; always a throwaway database, dropped at the
+ * end (`--keep` keeps it and prints its URL). The api listens on LOAD_PORT (4196).
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { pathToFileURL } from 'node:url';
+
+/* eslint-disable @typescript-eslint/no-require-imports */
+const ROOT = path.resolve(__dirname, '..', '..');
+const { CSRF_COOKIE, CSRF_HEADER } = require(path.join(ROOT, 'common/src/api-types/auth.ts')) as typeof import('../../common/src/api-types/auth');
+const say = (s: string) => process.stdout.write(`${s}\n`);
+const LEVELS = ['L1', 'L2', 'L3', 'L4', 'L5', 'Roof'];
+const PASSWORD = 'load-bench-password-1';
+const MEMBERS = 10_000;
+const FLAGS = 2_000;
+
+function arg(name: string, fallback: number): number {
+  const i = process.argv.indexOf(`--${name}`);
+  return i > 0 ? Number(process.argv[i + 1]) : fallback;
+}
+
+interface AutocannonResult {
+  duration: number;
+  requests: { total: number };
+  non2xx: number;
+  errors: number;
+  timeouts: number;
+}
+type Autocannon = ((opts: Record<string, unknown>) => { on(event: 'response', cb: (client: unknown, status: number, bytes: number, ms: number) => void): void } & PromiseLike<AutocannonResult>);
+
+/** A signed-in client of the api under test: cookies and the CSRF header, as the web client sends them. */
+class Session {
+  private readonly cookies = new Map<string, string>();
+  constructor(private readonly base: string) {}
+
+  get cookieHeader(): string {
+    return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+  }
+
+  async request(method: string, url: string, body?: unknown): Promise<{ status: number; body: any }> {
+    const headers: Record<string, string> = { cookie: this.cookieHeader };
+    const csrf = this.cookies.get(CSRF_COOKIE);
+    if (method !== 'GET' && csrf) headers[CSRF_HEADER] = csrf;
+    let payload: BodyInit | undefined;
+    if (body instanceof FormData) payload = body;
+    else if (body !== undefined) {
+      headers['content-type'] = 'application/json';
+      payload = JSON.stringify(body);
+    }
+    const res = await fetch(this.base + url, { method, headers, body: payload });
+    for (const c of res.headers.getSetCookie()) {
+      const [pair] = c.split(';');
+      const eq = pair.indexOf('=');
+      this.cookies.set(pair.slice(0, eq).trim(), pair.slice(eq + 1).trim());
+    }
+    const text = await res.text();
+    let parsed: unknown = text;
+    try {
+      parsed = text ? JSON.parse(text) : null;
+    } catch {
+      /* not JSON */
+    }
+    return { status: res.status, body: parsed };
+  }
+
+  async ok(method: string, url: string, body?: unknown): Promise<any> {
+    const res = await this.request(method, url, body);
+    if (res.status >= 300) throw new Error(`${method} ${url} → ${res.status} ${JSON.stringify(res.body).slice(0, 400)}`);
+    return res.body;
+  }
+}
+
+async function waitFor(url: string, api: ChildProcess, ms: number): Promise<void> {
+  const until = Date.now() + ms;
+  while (Date.now() < until) {
+    if (api.exitCode !== null) throw new Error(`the api exited (${api.exitCode}) before answering`);
+    try {
+      const res = await fetch(url);
+      if (res.status < 500) return;
+    } catch {
+      /* not listening yet */
+    }
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`the api did not answer ${url} within ${ms / 1000} s`);
+}
+
+function percentile(sorted: number[], p: number): number {
+  if (sorted.length === 0) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+async function main(): Promise<void> {
+  const connections = arg('connections', 50);
+  const seconds = arg('seconds', 10);
+  const keep = process.argv.includes('--keep');
+  const port = Number(process.env.LOAD_PORT ?? 4196);
+  const mainJs = path.join(ROOT, 'api', 'dist', 'main.js');
+  if (!fs.existsSync(mainJs)) throw new Error('api/dist/main.js is missing: run `npm run build` first');
+
+  const { floorBeams, xlsxOf } = require(path.join(ROOT, 'api/test/fixtures/schedule-files.ts')) as typeof import('../../api/test/fixtures/schedule-files');
+  const { createKnex, migrateLatest, hashPassword } = require(path.join(ROOT, 'database/index.ts')) as typeof import('../../database/index');
+  const autocannon = require('autocannon') as Autocannon;
+
+  let cluster: { stop(): void } | null = null;
+  let server: string;
+  if (process.env.DATABASE_URL) {
+    server = process.env.DATABASE_URL.replace(/\/[^/]*$/, '');
+  } else {
+    const importEsm = new Function('s', 'return import(s)') as (s: string) => Promise<{ startCluster(o: { dataDir: string; port: number }): { url: string; stop(): void } }>;
+    const mod = await importEsm(pathToFileURL(path.join(ROOT, 'database/scripts/pg-cluster.mjs')).href);
+    const started = mod.startCluster({ dataDir: path.join(ROOT, '.data', 'bench-load'), port: 54369 });
+    cluster = started;
+    server = started.url.replace(/\/[^/]*$/, '');
+  }
+  const dbName = `sagline_load_${process.pid}`;
+  const admin = createKnex(`${server}/postgres`, { min: 0, max: 1 });
+  await admin.raw(`drop database if exists "${dbName}" with (force)`);
+  await admin.raw(`create database "${dbName}"`);
+  const url = `${server}/${dbName}`;
+  const knex = createKnex(url, { min: 0, max: 2 });
+  let api: ChildProcess | null = null;
+  try {
+    await migrateLatest(knex);
+    // People: the engineer uploads, a checker raises, four more engineers get the flags, the manager watches.
+    const hash = await hashPassword(PASSWORD);
+    const people = [
+      { email: 'load.manager@firm.example', name: 'Load Manager', role: 'manager' },
+      { email: 'load.engineer@firm.example', name: 'Load Engineer', role: 'engineer' },
+      { email: 'load.checker@firm.example', name: 'Load Checker', role: 'checker' },
+      ...[1, 2, 3, 4].map((k) => ({ email: `load.reviewer${k}@firm.example`, name: `Load Reviewer ${k}`, role: 'engineer' })),
+    ];
+    const ids: Record<string, number> = {};
+    for (const p of people) {
+      const [u] = await knex('users').insert({ email: p.email, name: p.name, password_hash: hash }).returning('id');
+      ids[p.email] = u.id;
+    }
+    const [project] = await knex('projects').insert({ name: 'Load Bench Tower', number: 'LB-1', unit_system: 'SI' }).returning('id');
+    await knex('levels').insert(LEVELS.map((name, position) => ({ project_id: project.id, name, position })));
+    await knex('project_roles').insert(people.map((p) => ({ project_id: project.id, user_id: ids[p.email], role: p.role })));
+    const reviewers = [1, 2, 3, 4].map((k) => ids[`load.reviewer${k}@firm.example`]);
+
+    say(`api: node api/dist/main.js on 127.0.0.1:${port} (NODE_ENV=production), database ${dbName}`);
+    api = spawn(process.execPath, [mainJs], {
+      cwd: ROOT,
+      env: {
+        PATH: process.env.PATH,
+        NODE_ENV: 'production',
+        DATABASE_URL: url,
+        HOST: '127.0.0.1',
+        PORT: String(port),
+        PUBLIC_URL: `http://127.0.0.1:${port}`,
+        SESSION_SECRET: randomBytes(48).toString('base64'),
+        // Mail goes to the outbox; nothing listens here, and the retry timer is off.
+        SMTP_URL: 'smtp://127.0.0.1:9',
+        MAIL_RETRY_SECONDS: '0',
+        SIGN_IN_RATE_LIMIT: '1000/1m',
+        JOBS_POLL_SECONDS: '0.5',
+      },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
+    let apiLog = '';
+    api.stdout!.on('data', (d: Buffer) => (apiLog += d.toString()));
+    api.stderr!.on('data', (d: Buffer) => (apiLog += d.toString()));
+    const base = `http://127.0.0.1:${port}`;
+    await waitFor(`${base}/api/health`, api, 60_000).catch((e: Error) => {
+      throw new Error(`${e.message}\n${apiLog}`);
+    });
+
+    const signIn = async (email: string): Promise<Session> => {
+      const s = new Session(base);
+      await s.request('GET', '/api/auth/me');
+      await s.ok('POST', '/api/auth/sign-in', { email, password: PASSWORD });
+      return s;
+    };
+
+    // 1. The schedule, through the api: upload (preview), commit (a background job above 2,000 members).
+    const engineer = await signIn('load.engineer@firm.example');
+    const members = floorBeams(MEMBERS, { levels: LEVELS, failEvery: 12 });
+    const form = new FormData();
+    form.append('file', new Blob([await xlsxOf(members)]), 'load-bench-schedule.xlsx');
+    let t = Date.now();
+    const preview = await engineer.ok('POST', `/api/projects/${project.id}/imports`, form);
+    const commit = await engineer.ok('POST', `/api/projects/${project.id}/imports/${preview.draftId}/commit`, { label: 'load bench' });
+    if (commit.jobId) {
+      for (;;) {
+        const job = await engineer.ok('GET', `/api/projects/${project.id}/imports/jobs/${commit.jobId}`);
+        if (job.state === 'completed') break;
+        if (job.state === 'failed') throw new Error(`the import job failed: ${JSON.stringify(job.error)}`);
+        await new Promise((r) => setTimeout(r, 250));
+      }
+    }
+    say(`project: ${MEMBERS} members imported through the api in ${((Date.now() - t) / 1000).toFixed(1)} s (${preview.summary.fail} failing)`);
+
+    // 2. 2,000 flags, raised through the api in batches of 500 marks, each batch for another reviewer.
+    const checker = await signIn('load.checker@firm.example');
+    t = Date.now();
+    const marks = members.map((m) => m.mark);
+    // Every failing member, then passing ones, evenly over the schedule.
+    const failing = marks.filter((_, k) => k % 12 === 11);
+    const others = marks.filter((_, k) => k % 12 !== 11).filter((_, k) => k % 4 === 0);
+    const flagged = [...failing, ...others].slice(0, FLAGS);
+    for (let b = 0; b < flagged.length; b += 500) {
+      const due = new Date(Date.now() + (b % 1000 === 0 ? -3 : 14) * 86_400_000).toISOString().slice(0, 10);
+      await checker.ok('POST', `/api/projects/${project.id}/flags/bulk`, { marks: flagged.slice(b, b + 500), assigneeId: reviewers[(b / 500) % 4], dueDate: due, comment: 'Please check this member.' });
+    }
+    // Their later life, in SQL: 20 % answered, 25 % closed, 5 % waived, the rest open.
+    await knex.raw(`
+      with numbered as (select id, row_number() over (order by id) as n from flags where project_id = ?)
+      update flags f set
+        status = case when n % 20 = 0 then 'waived' when n % 4 = 1 then 'closed' when n % 5 = 2 then 'answered' else 'open' end,
+        waive_reason = case when n % 20 = 0 then 'Within the tolerance agreed with the architect.' else null end,
+        updated_at = now() - (n % 30) * interval '1 day'
+      from numbered where f.id = numbered.id`, [project.id]);
+    const counts = await knex('flags').where({ project_id: project.id }).groupBy('status').select('status').count<{ status: string; count: string }[]>('* as count');
+    say(`flags: ${flagged.length} raised through the api in ${((Date.now() - t) / 1000).toFixed(1)} s; ${counts.map((c) => `${c.count} ${c.status}`).join(', ')}`);
+    await knex.raw('analyze');
+
+    // 3. The load: a signed-in manager's session, 50 connections, each route on its own.
+    const manager = await signIn('load.manager@firm.example');
+    const routes = [
+      // The floor every signed-in request stands on: session, CSRF token, the user.
+      { name: 'Signed-in floor (GET /api/auth/me)', path: '/api/auth/me' },
+      { name: 'Members page (fail, -utilization, page 2)', path: `/api/projects/${project.id}/members?verdict=fail&sort=-utilization&page=2` },
+      { name: 'Flags summary', path: `/api/projects/${project.id}/flags/summary` },
+      { name: 'Overview', path: `/api/projects/${project.id}/overview` },
+    ];
+    const loadavg = () => os.loadavg().map((x) => x.toFixed(1)).join(' ');
+    say(`load: ${connections} connections, ${seconds} s per route after a 3 s warm-up, loopback; target p95 ≤ 50 ms`);
+    say(`machine: ${os.cpus().length} cores, load average ${loadavg()} before the runs\n`);
+    say('| route | p50 | p95 | p99 | requests/s | non-2xx |');
+    say('|---|---|---|---|---|---|');
+    for (const route of routes) {
+      const probe = await manager.request('GET', route.path);
+      if (probe.status === 404 && route.name === 'Overview') {
+        say(`| ${route.name} | (not in this build: ${probe.status}) | | | | |`);
+        continue;
+      }
+      if (probe.status !== 200) throw new Error(`GET ${route.path} → ${probe.status} ${JSON.stringify(probe.body).slice(0, 300)}`);
+      const opts = { url: base + route.path, connections, headers: { cookie: manager.cookieHeader, accept: 'application/json' } };
+      await autocannon({ ...opts, duration: 3 });
+      const latencies: number[] = [];
+      const run = autocannon({ ...opts, duration: seconds });
+      run.on('response', (_c, _status, _bytes, ms) => latencies.push(ms));
+      const result = await run;
+      latencies.sort((a, b) => a - b);
+      const f = (ms: number) => `${ms.toFixed(1)} ms`;
+      const p95 = percentile(latencies, 95);
+      say(
+        `| ${route.name} | ${f(percentile(latencies, 50))} | ${f(p95)}${p95 <= 50 ? '' : ' (over 50)'} | ${f(percentile(latencies, 99))} | ${(result.requests.total / result.duration).toFixed(0)} | ${result.non2xx + result.errors + result.timeouts} |`,
+      );
+    }
+    say(`\nload average after the runs: ${loadavg()}`);
+    if (keep) say(`kept: ${url}`);
+  } finally {
+    api?.kill('SIGTERM');
+    await knex.destroy();
+    if (!keep) await admin.raw(`drop database if exists "${dbName}" with (force)`);
+    await admin.destroy();
+    cluster?.stop();
+  }
+}
+
+main().catch((e: unknown) => {
+  process.stderr.write(`load bench failed: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`);
+  process.exit(1);
+});
