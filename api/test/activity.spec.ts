@@ -90,6 +90,8 @@ describe('the activity feed', () => {
       id: expect.any(Number), at: expect.any(String), actor: { id: checker.id, name: 'Priya Castellanos' }, action: 'flag.closed', kind: 'flags',
       summary: `Priya Castellanos closed flag ${flag.id} on B1`, refs: { flagIds: [flag.id], marks: ['B1'] },
     });
+    // The revision a flag was raised in, named by its number though the entry holds only its id.
+    expect(byAction.get('flag.raised')).toMatchObject({ refs: { flagIds: [flag.id], marks: ['B1'], revision: { id: revisionId, number: 1 } } });
     expect(byAction.get('import.committed')).toMatchObject({ kind: 'imports', actor: { id: engineer.id }, refs: { revision: { id: revisionId, number: 1 } } });
     expect(byAction.get('sign_off.voided')).toMatchObject({ kind: 'sign-offs', actor: null, refs: { level: { id: project.levels[1].id, name: 'L2' }, marks: ['B7'], revision: { id: revisionId, number: 2 } } });
     expect(byAction.get('reviewer.assigned')).toMatchObject({ kind: 'assignments', refs: { level: { name: 'L2' }, user: { id: checker.id, name: 'Priya Castellanos' } } });

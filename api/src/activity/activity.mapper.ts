@@ -5,7 +5,7 @@ const int = (v: unknown): number | null => (typeof v === 'number' && Number.isIn
 const text = (v: unknown): string | null => (typeof v === 'string' && v.trim() !== '' ? v : null);
 
 /** The links an entry's data allows (flag, member mark, revision, level, person, limit set). */
-export function activityRefs(action: string, data: Record<string, unknown> | null, subjectName: string | null = null): ActivityRefs {
+export function activityRefs(action: string, data: Record<string, unknown> | null, subjectName: string | null = null, revisionNumber: number | null = null): ActivityRefs {
   const d = data ?? {};
   const refs: ActivityRefs = {};
   const flagIds = [int(d.flagId), ...(Array.isArray(d.flagIds) ? d.flagIds.map(int) : [])].filter((n): n is number => n !== null);
@@ -13,7 +13,7 @@ export function activityRefs(action: string, data: Record<string, unknown> | nul
   const marks = [text(d.mark), ...(Array.isArray(d.marks) ? d.marks.map(text) : [])].filter((m): m is string => m !== null);
   if (marks.length) refs.marks = [...new Set(marks)];
   const revisionId = int(d.revisionId);
-  if (revisionId !== null) refs.revision = { id: revisionId, number: int(d.revisionNumber) ?? (action.startsWith('import.') ? int(d.number) : null) };
+  if (revisionId !== null) refs.revision = { id: revisionId, number: int(d.revisionNumber) ?? (action.startsWith('import.') ? int(d.number) : null) ?? revisionNumber };
   const levelName = text(d.levelName);
   if (levelName !== null) refs.level = { id: int(d.levelId), name: levelName };
   const userId = int(d.userId);
@@ -32,6 +32,6 @@ export function toActivityEntry(row: ActivityRow): ActivityEntry {
     action: row.action,
     kind: activityKindOf(row.action),
     summary: row.summary,
-    refs: activityRefs(row.action, row.data, row.subject_name),
+    refs: activityRefs(row.action, row.data, row.subject_name, row.revision_number),
   };
 }

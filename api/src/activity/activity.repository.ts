@@ -23,6 +23,8 @@ export interface ActivityRow {
   actor_name: string | null;
   /** The name of the person `data.userId` names (a reviewer given a level, someone added to the team). */
   subject_name: string | null;
+  /** The number of the revision `data.revisionId` names, when it still exists. */
+  revision_number: number | null;
 }
 
 /** The feed's filters, already checked (ListActivityQuery). */
@@ -74,10 +76,15 @@ export class ActivityRepository {
     return this.filtered(projectId, f)
       .leftJoin('users as u', 'u.id', 'a.actor_id')
       .leftJoin('users as su', 'su.id', this.knex.raw(`case when a.data->>'userId' ~ '^[0-9]{1,9}$' then (a.data->>'userId')::int end`))
+      .leftJoin('revisions as rv', (j) =>
+        j
+          .on('rv.id', this.knex.raw(`case when a.data->>'revisionId' ~ '^[0-9]{1,9}$' then (a.data->>'revisionId')::int end`))
+          .andOn('rv.project_id', 'a.project_id'),
+      )
       .orderBy([{ column: 'a.created_at', order: 'desc' }, { column: 'a.id', order: 'desc' }])
       .offset(offset)
       .limit(limit)
-      .select('a.id', 'a.created_at', 'a.action', 'a.summary', 'a.data', 'a.actor_id', 'u.name as actor_name', 'su.name as subject_name');
+      .select('a.id', 'a.created_at', 'a.action', 'a.summary', 'a.data', 'a.actor_id', 'u.name as actor_name', 'su.name as subject_name', 'rv.number as revision_number');
   }
 
   async count(projectId: number, f: ActivityFilter): Promise<number> {
