@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
-import { App, Button, Empty, Flex, List, Modal, Typography } from 'antd';
+import { App, Button, Empty, Flex, Modal, Skeleton, Typography } from 'antd';
 import { FlagOutlined } from '@ant-design/icons';
 import type { Flag } from '@sagline/common/api-types';
 import { paths } from '@/app/paths';
@@ -31,34 +31,7 @@ export function MemberFlags({ projectId, mark, checks }: { projectId: number; ma
       {error ? (
         <LoadError error={error} what={`the flags of ${mark}`} onRetry={() => void mutate()} />
       ) : (
-        <List<Flag>
-          size="small"
-          loading={isLoading}
-          dataSource={flags}
-          aria-label={`Flags of ${mark}`}
-          locale={{ emptyText: <Empty image={Empty.PRESENTED_IMAGE_SIMPLE} description={`No flag on ${mark} yet.`} /> }}
-          renderItem={(f) => (
-            <List.Item>
-              <Flex vertical gap={2} style={{ width: '100%' }}>
-                <Flex gap={8} align="center" wrap>
-                  <FlagStatusTag status={f.status} />
-                  <Link to={paths.projectFlag.getHref(projectId, f.id)}>{f.title}</Link>
-                </Flex>
-                <Typography.Text type="secondary" style={{ fontSize: 13 }}>
-                  {f.checkName ?? 'Member as a whole'} · {f.assignee ? f.assignee.name : 'unassigned'}
-                  {f.dueDate && (
-                    <>
-                      {' · due '}
-                      <DueDate date={f.dueDate} overdue={f.overdue} />
-                    </>
-                  )}
-                  {' · raised by '}
-                  {f.raisedBy?.name ?? 'someone no longer on the team'}
-                </Typography.Text>
-              </Flex>
-            </List.Item>
-          )}
-        />
+        <FlagList projectId={projectId} mark={mark} flags={flags} loading={isLoading && !data} />
       )}
       {mayRaise && (
         <div>
@@ -87,5 +60,36 @@ export function MemberFlags({ projectId, mark, checks }: { projectId: number; ma
         />
       </Modal>
     </Flex>
+  );
+}
+
+/** A plain list (a `ul` with the member's name), one flag per item. */
+function FlagList({ projectId, mark, flags, loading }: { projectId: number; mark: string; flags: Flag[]; loading: boolean }) {
+  if (loading) return <Skeleton active paragraph={{ rows: 2 }} title={false} />;
+  if (flags.length === 0) return <Empty image={Empty.PRESENTED_IMAGE_SIMPLE} description={`No flag on ${mark} yet.`} />;
+  return (
+    <ul aria-label={`Flags of ${mark}`} style={{ listStyle: 'none', margin: 0, padding: 0 }}>
+      {flags.map((f) => (
+        <li key={f.id} style={{ padding: '8px 0', borderBottom: '1px solid #eef1f3' }}>
+          <Flex vertical gap={2}>
+            <Flex gap={8} align="center" wrap>
+              <FlagStatusTag status={f.status} />
+              <Link to={paths.projectFlag.getHref(projectId, f.id)}>{f.title}</Link>
+            </Flex>
+            <Typography.Text type="secondary" style={{ fontSize: 13 }}>
+              {f.checkName ?? 'Member as a whole'} · {f.assignee ? f.assignee.name : 'unassigned'}
+              {f.dueDate && (
+                <>
+                  {' · due '}
+                  <DueDate date={f.dueDate} overdue={f.overdue} />
+                </>
+              )}
+              {' · raised by '}
+              {f.raisedBy?.name ?? 'someone no longer on the team'}
+            </Typography.Text>
+          </Flex>
+        </li>
+      ))}
+    </ul>
   );
 }
