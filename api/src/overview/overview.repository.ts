@@ -79,61 +79,97 @@ export class OverviewRepository {
     return this.knex('levels').where({ project_id: projectId }).orderBy('position').select('id', 'name', 'position');
   }
 
+  /**
+   * A fingerprint of everything the overview reads, cheap to compute (no
+   * member is read): the latest revision and its row version (a limit-set
+   * recompute rewrites its counts in place), the sum of the flags' versions
+   * (every flag change adds one), the assignments, the sign-offs, the levels,
+   * the project row, and today (overdue moves at midnight UTC). Any committed
+   * change the overview shows changes it; see overview-cache.ts.
+   */
+  async fingerprint(projectId: number): Promise<string> {
+    const { rows } = await this.knex.raw<{ rows: { key: string }[] }>(
+      `select concat_ws('|',
+         (select r.id || ':' || r.xmin::text from revisions r where r.project_id = ? order by r.number desc limit 1),
+         (select coalesce(sum(f.version), 0) || ':' || count(*) from flags f where f.project_id = ?),
+         (select count(*) || ':' || coalesce(max(a.id), 0) from reviewer_assignments a where a.project_id = ?),
+         (select count(*) || ':' || count(s.voided_at) from level_sign_offs s where s.project_id = ?),
+         (select string_agg(l.id || ':' || l.xmin::text, ',' order by l.id) from levels l where l.project_id = ?),
+         (select p.xmin::text from projects p where p.id = ?),
+         ${TODAY}::text) as key`,
+      [projectId, projectId, projectId, projectId, projectId, projectId],
+    );
+    return rows[0].key;
+  }
+
   async today(): Promise<string> {
     const { rows } = await this.knex.raw<{ rows: { today: string }[] }>(`select to_char(${TODAY}, 'YYYY-MM-DD') as today`);
     return rows[0].today;
   }
 
   /**
-   * Members and flags counted per level, per reviewer and in total. A flag
+   * Members and flags counted per level, per reviewer and in total, in two
+   * aggregates run side by side: the revision's members grouped three ways
+   * in one pass (grouping sets, members_revision_* index), and the project's
+   * flags counted per mark, each mark looked up in the revision through
+   * members_revision_mark_unique (one index probe per flagged mark: cheaper
+   * than hashing every member's mark), grouped the same three ways. A flag
    * counts on its member's level and reviewer in `revisionId`; flags of marks
-   * not in it make the `present = false` groups. Revision 0 (none yet):
-   * no members, every flag absent.
+   * not in it make the `present = false` groups. Revision 0 (none yet): no
+   * members, every flag absent. The service joins the two by group.
    */
   async grouped(projectId: number, revisionId: number | null): Promise<OverviewGroupRow[]> {
-    const { rows } = await this.knex.raw<{ rows: OverviewGroupRow[] }>(
-      `with lm as (
-         select m.level_id, m.level_name, m.reviewer_id, m.verdict, lower(m.mark) as k
+    const [members, flags] = await Promise.all([
+      this.knex.raw<{ rows: OverviewGroupRow[] }>(
+        `select g.*, u.name as reviewer_name, u.email as reviewer_email from (
+         select case when grouping(m.reviewer_id) = 1 and grouping(m.level_id) = 0 then 'level'
+                     when grouping(m.reviewer_id) = 0 then 'reviewer' else 'total' end as grp,
+                true as present, m.level_id, m.level_name, m.reviewer_id,
+                count(*)::int as members,
+                count(*) filter (where m.verdict = 'pass')::int as pass,
+                count(*) filter (where m.verdict = 'fail')::int as fail,
+                count(*) filter (where m.verdict is null)::int as unchecked,
+                0 as open, 0 as answered, 0 as closed, 0 as waived, 0 as total_flags, 0 as overdue
            from members m
           where m.revision_id = ?
-       ),
-       fl as (
-         select lower(f.mark) as k,
-                count(*) filter (where f.status = 'open') as open,
-                count(*) filter (where f.status = 'answered') as answered,
-                count(*) filter (where f.status = 'closed') as closed,
-                count(*) filter (where f.status = 'waived') as waived,
-                count(*) filter (where f.status in ('open', 'answered') and f.due_date < ${TODAY}) as overdue
-           from flags f
-          where f.project_id = ?
-          group by lower(f.mark)
-       ),
-       j as (
-         select (lm.k is not null) as present, lm.level_id, lm.level_name, lm.reviewer_id, lm.verdict,
-                (lm.k is not null)::int as is_member,
-                coalesce(fl.open, 0) as open, coalesce(fl.answered, 0) as answered,
-                coalesce(fl.closed, 0) as closed, coalesce(fl.waived, 0) as waived, coalesce(fl.overdue, 0) as overdue
-           from lm full join fl on fl.k = lm.k
-       ),
-       g as (
+          group by grouping sets ((m.level_id, m.level_name), (m.reviewer_id), ())
+         ) g left join users u on u.id = g.reviewer_id`,
+        [revisionId ?? 0],
+      ),
+      this.knex.raw<{ rows: OverviewGroupRow[] }>(
+        `with fl as (
+           select lower(f.mark) as k,
+                  count(*) filter (where f.status = 'open') as open,
+                  count(*) filter (where f.status = 'answered') as answered,
+                  count(*) filter (where f.status = 'closed') as closed,
+                  count(*) filter (where f.status = 'waived') as waived,
+                  count(*) filter (where f.status in ('open', 'answered') and f.due_date < ${TODAY}) as overdue
+             from flags f
+            where f.project_id = ?
+            group by lower(f.mark)
+         )
          select case when grouping(j.present) = 1 then 'total' when grouping(j.reviewer_id) = 1 then 'level' else 'reviewer' end as grp,
-                j.present, j.level_id, j.level_name, j.reviewer_id,
-                coalesce(sum(j.is_member), 0)::int as members,
-                count(*) filter (where j.verdict = 'pass')::int as pass,
-                count(*) filter (where j.verdict = 'fail')::int as fail,
-                count(*) filter (where j.is_member = 1 and j.verdict is null)::int as unchecked,
-                coalesce(sum(j.open), 0)::int as open, coalesce(sum(j.answered), 0)::int as answered,
-                coalesce(sum(j.closed), 0)::int as closed, coalesce(sum(j.waived), 0)::int as waived,
-                coalesce(sum(j.open + j.answered + j.closed + j.waived), 0)::int as total_flags,
-                coalesce(sum(j.overdue), 0)::int as overdue
-           from j
+                j.present, j.level_id, j.level_name, j.reviewer_id, null as reviewer_name, null as reviewer_email,
+                0 as members, 0 as pass, 0 as fail, 0 as unchecked,
+                sum(j.open)::int as open, sum(j.answered)::int as answered, sum(j.closed)::int as closed, sum(j.waived)::int as waived,
+                sum(j.open + j.answered + j.closed + j.waived)::int as total_flags, sum(j.overdue)::int as overdue
+           from (
+             select (m.k is not null) as present, m.level_id, m.level_name, m.reviewer_id, fl.open, fl.answered, fl.closed, fl.waived, fl.overdue
+               from fl
+               -- limit 1 keeps the lookup a per-mark index probe (the mark is unique per revision anyway).
+               left join lateral (
+                 select lower(m.mark) as k, m.level_id, m.level_name, m.reviewer_id
+                   from members m
+                  where m.revision_id = ? and lower(m.mark) = fl.k
+                  limit 1
+               ) m on true
+           ) j
           group by grouping sets ((j.present, j.level_id, j.level_name), (j.present, j.reviewer_id), ())
-       )
-       select g.*, u.name as reviewer_name, u.email as reviewer_email
-         from g left join users u on u.id = g.reviewer_id`,
-      [revisionId ?? 0, projectId],
-    );
-    return rows;
+         having count(*) > 0`,
+        [projectId, revisionId ?? 0],
+      ),
+    ]);
+    return [...members.rows, ...flags.rows];
   }
 
   /**

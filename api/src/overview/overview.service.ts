@@ -2,6 +2,7 @@ import { Injectable } from '@nestjs/common';
 import type { FlagsOverTime, OverviewLevelRow, OverviewReviewerRow, ProjectOverview } from '@sagline/common/api-types';
 import type { ProjectAccess } from '../auth/project-access';
 import { notFound } from '../common/api-error';
+import { OverviewCache } from './overview-cache';
 import { EMPTY_COUNTS, toCounts, toOverviewRevision, toSignOff } from './overview.mapper';
 import { OverviewRepository, type OverviewGroupRow } from './overview.repository';
 import { ReviewerAssignmentsRepository } from './reviewer-assignments.repository';
@@ -14,10 +15,20 @@ export class OverviewService {
     private readonly repo: OverviewRepository,
     private readonly assignments: ReviewerAssignmentsRepository,
     private readonly signOffs: SignOffsRepository,
+    private readonly cache: OverviewCache,
   ) {}
 
+  /** Answered from the cache while nothing it counts has changed (overview-cache.ts). */
   async overview(access: ProjectAccess): Promise<ProjectOverview> {
-    const projectId = access.projectId;
+    const key = await this.repo.fingerprint(access.projectId);
+    const cached = this.cache.get(access.projectId, key);
+    if (cached) return cached;
+    const fresh = await this.count(access.projectId);
+    this.cache.set(access.projectId, key, fresh);
+    return fresh;
+  }
+
+  private async count(projectId: number): Promise<ProjectOverview> {
     const [project, latest, levels, levelAssignments, signOffs, today] = await Promise.all([
       this.repo.project(projectId),
       this.repo.latestRevision(projectId),
@@ -27,7 +38,7 @@ export class OverviewService {
       this.repo.today(),
     ]);
     if (!project) throw notFound(`Project ${projectId} was not found, or you are not on its team.`);
-    const groups = await this.repo.grouped(projectId, latest?.id ?? null);
+    const groups = mergeGroups(await this.repo.grouped(projectId, latest?.id ?? null));
 
     const levelGroups = groups.filter((g) => g.grp === 'level');
     const byLevelId = new Map(levelGroups.filter((g) => g.present && g.level_id !== null).map((g) => [g.level_id!, g]));
@@ -82,4 +93,24 @@ export class OverviewService {
 
 function byName(a: OverviewGroupRow, b: OverviewGroupRow): number {
   return (a.reviewer_name ?? '').localeCompare(b.reviewer_name ?? '') || (a.reviewer_id ?? 0) - (b.reviewer_id ?? 0);
+}
+
+const groupKey = (g: OverviewGroupRow) =>
+  g.grp === 'total' ? 'total' : g.grp === 'level' ? `level:${g.present}:${g.level_id}:${g.level_name}` : `reviewer:${g.present}:${g.reviewer_id}`;
+
+/** The member counts and the flag counts of the same group side by side (each row carries zeros for the other half). */
+function mergeGroups(rows: OverviewGroupRow[]): OverviewGroupRow[] {
+  const byKey = new Map<string, OverviewGroupRow>();
+  for (const r of rows) {
+    const key = groupKey(r);
+    const seen = byKey.get(key);
+    if (!seen) {
+      byKey.set(key, { ...r });
+      continue;
+    }
+    for (const f of ['members', 'pass', 'fail', 'unchecked', 'open', 'answered', 'closed', 'waived', 'total_flags', 'overdue'] as const) seen[f] += r[f];
+    seen.reviewer_name ??= r.reviewer_name;
+    seen.reviewer_email ??= r.reviewer_email;
+  }
+  return [...byKey.values()];
 }
