@@ -40,14 +40,14 @@ export function ChecksTable({
       rowKey={resultKey}
       pagination={false}
       dataSource={detail.results}
-      scroll={{ x: 1280 }}
+      scroll={{ x: 1120 }}
       rowClassName={(r) => (resultKey(r) === selected ? 'ant-table-row-selected' : '')}
       locale={{ emptyText: 'No check of the limit set applies to this member (its category, material or loads).' }}
       columns={[
         {
           title: 'Check',
           dataIndex: 'checkName',
-          width: 150,
+          width: 140,
           render: (_v, r) => (
             <Typography.Text strong={governing !== undefined && resultKey(r) === resultKey(governing)}>
               {r.checkName}
@@ -63,13 +63,13 @@ export function ChecksTable({
         {
           title: 'Segment',
           key: 'segment',
-          width: 110,
+          width: 95,
           render: (_v, r) => segmentName({ kind: r.segmentKind, from: r.segmentFrom }, r.segmentIndex, segments),
         },
         {
           title: 'Effective length',
           dataIndex: 'effectiveLength',
-          width: 110,
+          width: 95,
           align: 'right',
           render: (_v, r) => (
             <Tooltip title={r.segmentKind === 'overhang' ? 'Twice the overhang (IBC 2021 Table 1604.3, cantilever footnote)' : 'The span'}>
@@ -82,7 +82,7 @@ export function ChecksTable({
         {
           title: 'Deflection',
           dataIndex: 'deflection',
-          width: 130,
+          width: 110,
           align: 'right',
           render: (_v, r) => (
             <span style={{ fontVariantNumeric: 'tabular-nums', whiteSpace: 'nowrap' }} title={`at x = ${formatQuantity(r.x, 'position', system)}`}>
@@ -93,14 +93,13 @@ export function ChecksTable({
         {
           title: 'Span ratio',
           dataIndex: 'spanRatio',
-          width: 90,
+          width: 80,
           align: 'right',
           render: (_v, r) => <span style={{ fontVariantNumeric: 'tabular-nums' }}>{ratioText(r.spanRatio)}</span>,
         },
         {
           title: 'Limit',
           key: 'limit',
-          width: 250,
           render: (_v, r) => {
             const rule = rules.get(r.ruleId);
             return (
@@ -122,11 +121,11 @@ export function ChecksTable({
           },
         },
         { title: 'Utilisation', dataIndex: 'utilization', width: 150, render: (_v, r) => <UtilisationBar value={r.utilization} /> },
-        { title: 'Verdict', dataIndex: 'pass', width: 80, render: (_v, r) => <VerdictTag verdict={r.pass ? 'pass' : 'fail'} /> },
+        { title: 'Verdict', dataIndex: 'pass', width: 75, render: (_v, r) => <VerdictTag verdict={r.pass ? 'pass' : 'fail'} /> },
         {
           title: 'I required',
           dataIndex: 'requiredI',
-          width: 120,
+          width: 115,
           align: 'right',
           render: (_v, r) => (
             <Quantity si={r.requiredI} quantity="inertia" system={system} style={r.pass ? { color: '#6b7a85' } : { fontWeight: 600 }} />
@@ -135,7 +134,7 @@ export function ChecksTable({
         {
           title: '',
           key: 'open',
-          width: 120,
+          width: 125,
           render: (_v, r) => (
             <Button
               size="small"

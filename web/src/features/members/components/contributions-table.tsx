@@ -86,7 +86,7 @@ export function ContributionsTable({ detail, result }: { detail: MemberDetail; r
         { title: 'Case', dataIndex: 'case', width: 60 },
         { title: 'What', dataIndex: 'load', ellipsis: { showTitle: true } },
         {
-          title: 'Alone',
+          title: 'Load alone',
           dataIndex: 'alone',
           width: 120,
           align: 'right',

@@ -65,24 +65,25 @@ export function MembersTable({
       title: 'Mark',
       dataIndex: 'mark',
       fixed: 'left',
-      width: 110,
+      width: 100,
       render: (_v, m) => (
         <Link to={memberHref(m.mark)} state={linkState} style={{ fontWeight: 600 }}>
           {m.mark}
         </Link>
       ),
     },
-    level: { title: 'Level', dataIndex: ['level', 'name'], width: 80 },
+    level: { title: 'Level', dataIndex: ['level', 'name'], width: 70, ellipsis: { showTitle: true } },
     grid: {
       title: 'Grid',
       dataIndex: 'grid',
-      width: 100,
+      width: 95,
+      ellipsis: { showTitle: true },
       render: (_v, m) => m.grid ?? <Typography.Text type="secondary">—</Typography.Text>,
     },
     category: {
       title: 'Category',
       dataIndex: 'category',
-      width: 170,
+      width: 150,
       ellipsis: { showTitle: true },
       render: (_v, m) => categoryLabel(m.category),
     },
@@ -95,7 +96,7 @@ export function MembersTable({
       render: (_v, m) => m.section ?? <Typography.Text type="secondary">—</Typography.Text>,
     },
     supports: { title: 'Supports', dataIndex: 'supports', width: 160, ellipsis: { showTitle: true }, render: (_v, m) => supportsLabel(m.supports) },
-    spans: { title: 'Spans', key: 'spans', width: 170, render: (_v, m) => spansText(m, unitSystem) },
+    spans: { title: 'Spans', key: 'spans', width: 125, ellipsis: { showTitle: true }, render: (_v, m) => spansText(m, unitSystem) },
     length: {
       title: 'Length',
       dataIndex: 'length',
@@ -106,18 +107,18 @@ export function MembersTable({
     governingCheck: {
       title: 'Governing check',
       dataIndex: 'governingCheck',
-      width: 150,
+      width: 140,
       ellipsis: { showTitle: true },
       render: (_v, m) => m.governingCheck ?? <Typography.Text type="secondary">—</Typography.Text>,
     },
     utilization: {
       title: 'Utilisation',
       dataIndex: 'maxUtilization',
-      width: 160,
+      width: 150,
       sortDirections: ['descend', 'ascend'],
       render: (_v, m) => <UtilisationBar value={m.maxUtilization} />,
     },
-    verdict: { title: 'Verdict', dataIndex: 'verdict', width: 100, render: (_v, m) => <VerdictTag verdict={m.verdict} /> },
+    verdict: { title: 'Verdict', dataIndex: 'verdict', width: 90, render: (_v, m) => <VerdictTag verdict={m.verdict} /> },
     I: {
       title: 'I',
       dataIndex: 'I',
@@ -128,7 +129,7 @@ export function MembersTable({
     requiredI: {
       title: 'I required',
       dataIndex: 'requiredI',
-      width: 130,
+      width: 125,
       align: 'right',
       render: (_v, m) =>
         m.requiredI === null ? (
@@ -145,7 +146,7 @@ export function MembersTable({
     reviewer: {
       title: 'Reviewer',
       dataIndex: 'reviewer',
-      width: 150,
+      width: 130,
       ellipsis: { showTitle: true },
       render: (_v, m) =>
         m.reviewer ? (
@@ -161,7 +162,7 @@ export function MembersTable({
     flags: {
       title: 'Open flags',
       dataIndex: 'openFlagCount',
-      width: 95,
+      width: 90,
       align: 'right',
       render: (_v, m) => (m.openFlagCount > 0 ? <Tag color="warning">{m.openFlagCount}</Tag> : <Typography.Text type="secondary">0</Typography.Text>),
     },

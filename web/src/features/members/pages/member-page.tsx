@@ -140,7 +140,10 @@ function MemberView({ detail, back }: { detail: MemberDetail; back: ReactNode })
 
       <Card size="small" title="Checks">
         <RegionBoundary region="the checks">
-          <ChecksTable detail={detail} selected={selected ? resultKey(selected) : null} onSelect={(r) => setSelectedKey(resultKey(r))} />
+          <Flex vertical gap={8}>
+            <ChecksTable detail={detail} selected={selected ? resultKey(selected) : null} onSelect={(r) => setSelectedKey(resultKey(r))} />
+            <CautionNote />
+          </Flex>
         </RegionBoundary>
       </Card>
 
@@ -174,9 +177,11 @@ function MemberView({ detail, back }: { detail: MemberDetail; back: ReactNode })
       </Card>
 
       <Card size="small" title="Flags">
-        <RegionBoundary region="the flags">
-          <MemberFlags projectId={project.id} mark={m.mark} checks={checks} />
-        </RegionBoundary>
+        <section aria-label={`Flags of ${m.mark}`}>
+          <RegionBoundary region="the flags">
+            <MemberFlags projectId={project.id} mark={m.mark} checks={checks} />
+          </RegionBoundary>
+        </section>
       </Card>
 
       <Card size="small" title="History across revisions">
@@ -185,7 +190,6 @@ function MemberView({ detail, back }: { detail: MemberDetail; back: ReactNode })
         </RegionBoundary>
       </Card>
 
-      <CautionNote />
     </Flex>
   );
 }

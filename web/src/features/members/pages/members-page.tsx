@@ -86,6 +86,7 @@ export function MembersPage() {
               <BulkRaiseButton projectId={project.id} query={toMemberListQuery(view)} failingCount={failingCount} />
             )}
           </Flex>
+          <CautionNote />
         </Flex>
       </Card>
 
@@ -109,7 +110,6 @@ export function MembersPage() {
           )}
         </RegionBoundary>
       </Card>
-      <CautionNote />
     </Flex>
   );
 }
