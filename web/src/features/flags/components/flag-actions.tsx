@@ -1,5 +1,5 @@
 import { useState, type ReactNode } from 'react';
-import { Alert, App, Button, Flex, Form, Input, Tabs, Typography } from 'antd';
+import { Alert, App, Button, Flex, Form, Input, Tabs } from 'antd';
 import { FLAG_LIMITS, type FlagDetail, type UpdateFlagRequest } from '@sagline/common/api-types';
 import { errorMessage, isApiError } from '@/app/api-error';
 import { useCurrentProject } from '@/lib/current-project';
@@ -15,8 +15,11 @@ import { staleFlagOf, useFlagChange } from '../api/use-flag-change';
 import { waiveFlag } from '../api/waive-flag';
 import { EngineerSelect } from './engineer-select';
 
-/** Called when a change was refused because the flag had moved on; `current` is the flag as it is now. */
-export type OnStale = (current: FlagDetail, action: string) => void;
+/**
+ * Called when a change was refused because the flag had moved on: `current`
+ * is the flag as it is now, `text` what the person wrote (kept for them).
+ */
+export type OnStale = (current: FlagDetail, action: string, text?: string) => void;
 
 export type FlagActionKey = 'answer' | 'close' | 'reopen' | 'waive' | 'assign';
 
@@ -167,6 +170,7 @@ export function FlagActions({ flag, onStale, onChanged }: { flag: FlagDetail; on
     call: () => Promise<FlagDetail>,
     done: string,
     form?: { inst: ReturnType<typeof Form.useForm<F>>[0]; fields: (keyof F & string)[] },
+    text?: string,
   ): Promise<boolean> => {
     setProblem(null);
     try {
@@ -176,7 +180,7 @@ export function FlagActions({ flag, onStale, onChanged }: { flag: FlagDetail; on
       return true;
     } catch (e) {
       const current = staleFlagOf(e);
-      if (current) onStale(current, action);
+      if (current) onStale(current, action, text);
       else if (isApiError(e) && e.code === 'CONFLICT') setProblem(e.message);
       else if (!(form && showFieldErrors(form.inst, e, form.fields))) setProblem(errorMessage(e));
       return false;
@@ -200,7 +204,7 @@ export function FlagActions({ flag, onStale, onChanged }: { flag: FlagDetail; on
 
           placeholder="What was done: a new section, camber, or why the member is fine as it is."
           submitText="Send answer"
-          onSubmit={(body, f) => change('answer', () => answerFlag(pid, flag.id, { version: v, body }), 'Answer sent; the checker will close or reopen the flag.', { inst: f, fields: ['body'] })}
+          onSubmit={(body, f) => change('answer', () => answerFlag(pid, flag.id, { version: v, body }), 'Answer sent; the checker will close or reopen the flag.', { inst: f, fields: ['body'] }, body)}
         />
       ),
     },
@@ -215,7 +219,7 @@ export function FlagActions({ flag, onStale, onChanged }: { flag: FlagDetail; on
           field="body"
           placeholder="Why it is resolved."
           submitText="Close flag"
-          onSubmit={(body, f) => change('closing', () => closeFlag(pid, flag.id, { version: v, ...(body ? { body } : {}) }), 'Flag closed.', { inst: f, fields: ['body'] })}
+          onSubmit={(body, f) => change('closing', () => closeFlag(pid, flag.id, { version: v, ...(body ? { body } : {}) }), 'Flag closed.', { inst: f, fields: ['body'] }, body)}
         />
       ),
     },
@@ -232,7 +236,7 @@ export function FlagActions({ flag, onStale, onChanged }: { flag: FlagDetail; on
 
           placeholder="What still needs doing."
           submitText="Reopen flag"
-          onSubmit={(body, f) => change('reopening', () => reopenFlag(pid, flag.id, { version: v, body }), 'Flag reopened.', { inst: f, fields: ['body'] })}
+          onSubmit={(body, f) => change('reopening', () => reopenFlag(pid, flag.id, { version: v, body }), 'Flag reopened.', { inst: f, fields: ['body'] }, body)}
         />
       ),
     },
@@ -250,7 +254,7 @@ export function FlagActions({ flag, onStale, onChanged }: { flag: FlagDetail; on
           danger
           placeholder="Why the member is accepted as it is (e.g. the engineer of record accepts the deflection of this lintel)."
           submitText="Waive flag"
-          onSubmit={(reason, f) => change('waiver', () => waiveFlag(pid, flag.id, { version: v, reason }), 'Flag waived.', { inst: f, fields: ['reason'] })}
+          onSubmit={(reason, f) => change('waiver', () => waiveFlag(pid, flag.id, { version: v, reason }), 'Flag waived.', { inst: f, fields: ['reason'] }, reason)}
         />
       ),
     },
@@ -280,9 +284,7 @@ export function FlagCommentForm({ flag, onChanged }: { flag: FlagDetail; onChang
   const project = useCurrentProject();
   const { run } = useFlagChange(project.id, flag.id);
   const [problem, setProblem] = useState<string | null>(null);
-  if (!can.commentOnFlags(project.myRole)) {
-    return <Typography.Text type="secondary">Viewers read flags; they do not change them.</Typography.Text>;
-  }
+  if (!can.commentOnFlags(project.myRole)) return null;
   return (
     <Flex vertical gap={8}>
       <TextActionForm

@@ -49,6 +49,8 @@ describe('Flag page', () => {
     const alert = notice.closest('[role="alert"]') as HTMLElement;
     expect(within(alert).getByText(/You were looking at version 3; it is now version 4, status waived\./)).toBeInTheDocument();
     expect(within(alert).getByText(/Latest change: Tomas Okafor waived the flag/)).toBeInTheDocument();
+    // What the checker wrote is kept, although the close form is gone.
+    expect(within(alert).getByText('Section checked, fine now.')).toBeInTheDocument();
 
     const [close] = api.calls('POST /api/projects/7/flags/12/close');
     expect(close.body).toEqual({ version: 3, body: 'Section checked, fine now.' });

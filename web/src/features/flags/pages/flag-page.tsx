@@ -1,6 +1,6 @@
 import { useEffect, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { Alert, Button, Card, Col, Flex, Result, Row, Typography } from 'antd';
+import { Alert, Button, Card, Col, Divider, Flex, Result, Row, Typography } from 'antd';
 import { ArrowLeftOutlined } from '@ant-design/icons';
 import type { FlagDetail } from '@sagline/common/api-types';
 import { isApiError } from '@/app/api-error';
@@ -11,6 +11,7 @@ import { PageLoading } from '@/components/page-loading';
 import { RegionBoundary } from '@/components/region-boundary';
 import { useCurrentProject } from '@/lib/current-project';
 import { useCurrentUser } from '@/lib/current-user';
+import { can } from '@/lib/roles';
 import { formatDateTime } from '@/lib/format';
 import { useFlag } from '../api/get-flag';
 import { allowedActions, FlagActions, FlagCommentForm } from '../components/flag-actions';
@@ -20,6 +21,8 @@ import { FLAG_STATUS_HINTS, FLAG_STATUS_LABELS, FlagStatusTag } from '../compone
 
 interface StaleNotice {
   action: string;
+  /** What the person wrote, so nothing typed is lost even when its form is gone. */
+  text?: string;
   seenVersion: number;
   current: FlagDetail;
 }
@@ -92,7 +95,12 @@ export function FlagPage() {
             <>
               You were looking at version {stale.seenVersion}; it is now version {stale.current.version}, status{' '}
               {FLAG_STATUS_LABELS[stale.current.status].toLowerCase()}. {changesSince(stale)} The page now shows the flag as it
-              is; your text is still in the form. Read what changed, then try again if it still applies.
+              is. Read what changed, then try again if it still applies.
+              {stale.text && (
+                <Typography.Paragraph style={{ margin: '8px 0 0', whiteSpace: 'pre-wrap' }}>
+                  What you wrote: <Typography.Text italic>{stale.text}</Typography.Text>
+                </Typography.Paragraph>
+              )}
             </>
           }
           closable={{ onClose: () => setStale(null) }}
@@ -109,13 +117,13 @@ export function FlagPage() {
             </Card>
             <Card size="small" title="Thread and history">
               <RegionBoundary region="the history">
-                {flag.comment && (
-                  <Typography.Paragraph style={{ whiteSpace: 'pre-wrap' }}>
-                    <Typography.Text strong>{flag.raisedBy?.name ?? 'The checker'}:</Typography.Text> {flag.comment}
-                  </Typography.Paragraph>
-                )}
                 <FlagHistory events={flag.events} />
-                <FlagCommentForm flag={flag} onChanged={() => setStale(null)} />
+                {can.commentOnFlags(project.myRole) && (
+                  <>
+                    <Divider style={{ margin: '0 0 12px' }} />
+                    <FlagCommentForm flag={flag} onChanged={() => setStale(null)} />
+                  </>
+                )}
               </RegionBoundary>
             </Card>
           </Flex>
@@ -129,7 +137,7 @@ export function FlagPage() {
               <RegionBoundary region="the actions">
                 <FlagActions
                   flag={flag}
-                  onStale={(current, action) => setStale({ action, seenVersion: flag.version, current })}
+                  onStale={(current, action, text) => setStale({ action, text, seenVersion: flag.version, current })}
                   onChanged={() => setStale(null)}
                 />
                 {actions.length === 0 && (
