@@ -5,6 +5,9 @@ import { halvercote, manager } from '@/testing/fixtures';
 import { renderApp, setCsrfCookie } from '@/testing/render';
 import { activeSet, overview, stricterSet } from './limit-sets-fixtures';
 
+// Whole-app renders with antd forms: slow on a shared machine.
+jest.setTimeout(45_000);
+
 const viewer: Me = { id: 8, email: 'ola.brandt@halvercote.example', name: 'Ola Brandt', isAdmin: false };
 
 function limitSetsApi(me: Me, myRole: Parameters<typeof halvercote>[0], canEdit: boolean, more: StubRoutes = {}) {
@@ -96,7 +99,8 @@ describe('Limit sets', () => {
     expect(sent.rules[2]).toMatchObject({ id: 'supports-masonry.total', source: { document: 'Halvercote Yard basis of design' } });
     // The cap went back in metres, as it came.
     expect(sent.rules[2].maxAbs).toBeCloseTo(0.00762, 12);
-  });
+    // Typing into many antd fields is slow on a shared machine.
+  }, 45_000);
 
   it('uses another set after a confirmation, follows the background job, and says which verdicts flipped', async () => {
     setCsrfCookie('csrf-7');

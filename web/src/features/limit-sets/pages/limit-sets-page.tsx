@@ -10,7 +10,9 @@ import type {
   UpdateLimitSetRequest,
 } from '@sagline/common/api-types';
 import type { UnitSystemId } from '@sagline/common/units';
+import { Link } from 'react-router-dom';
 import { errorMessage } from '@/app/api-error';
+import { paths } from '@/app/paths';
 import { CautionNote } from '@/components/caution-note';
 import { LoadError } from '@/components/load-error';
 import { PageLoading } from '@/components/page-loading';
@@ -22,6 +24,9 @@ import { isLimitSetJob, updateLimitSet, type LimitSetChangeOutcome } from '../ap
 import { RecomputeProgress } from '../components/recompute-progress';
 import { RulesEditor } from '../components/rules-editor';
 import { RulesTable } from '../components/rules-table';
+
+/** Flipped members named in the notice after a change; the Members screen lists them all. */
+const FLIPS_SHOWN = 10;
 
 /** What the last change did, shown until dismissed. */
 interface Done {
@@ -55,21 +60,29 @@ export function LimitSetsPage() {
   const afterChange = useCallback(
     (name: string, result: LimitSetChangeResponse) => {
       const r = result.recompute;
+      const shown = r ? r.flipped.slice(0, FLIPS_SHOWN) : [];
       setDone({
         title: r ? `Revision ${r.revisionNumber} now follows "${name}".` : `"${name}" is saved.`,
         description: r ? (
-          <>
-            {r.memberCount} members recomputed: {r.before.fail} → {r.after.fail} failing, {r.flippedCount}{' '}
-            {r.flippedCount === 1 ? 'verdict' : 'verdicts'} flipped
-            {r.flipped.length > 0 && `: ${r.flipped.map((f) => `${f.mark} ${f.from ?? 'unchecked'} → ${f.to ?? 'unchecked'}`).join(', ')}${r.flippedCount > r.flipped.length ? ', …' : ''}`}.
-          </>
+          <Flex vertical gap={4}>
+            <span>
+              {r.memberCount} members recomputed: {r.before.fail} → {r.after.fail} failing, {r.flippedCount}{' '}
+              {r.flippedCount === 1 ? 'verdict' : 'verdicts'} flipped
+              {shown.length > 0 &&
+                `: ${shown.map((f) => `${f.mark} ${f.from ?? 'unchecked'} → ${f.to ?? 'unchecked'}`).join(', ')}${r.flippedCount > shown.length ? ` and ${r.flippedCount - shown.length} more` : ''}`}
+              .
+            </span>
+            <Link to={paths.projectMembers.getHref(project.id, { verdict: 'fail' })}>See the failing members</Link>
+          </Flex>
+        ) : result.set.active ? (
+          'The project has no revision yet: the next upload is checked against it.'
         ) : (
-          'No verdict changed: the set is not in use, or the project has no revision yet.'
+          'It is not in use, so no verdict changed. Choose "Use this set" to check the project against it.'
         ),
       });
       void mutate();
     },
-    [mutate],
+    [mutate, project.id],
   );
 
   const outcome = (name: string, o: LimitSetChangeOutcome) => {
