@@ -266,7 +266,8 @@ describe('limit sets: a large project recomputes as a background job', () => {
       saved[k] = process.env[k];
       process.env[k] = v;
     }
-    t = await TestApp.start();
+    // Given both ways the api may read them (the environment, and its configuration).
+    t = await TestApp.start({ env: ENV });
     const f = new Factories(t.knex);
     const m = await f.user({ name: 'Mireille Fontaine' });
     project = await f.project({ team: [[m, 'manager']] });

@@ -1,5 +1,7 @@
 import { Module } from '@nestjs/common';
 import { ActivityModule } from '../activity/activity.module';
+import type { AppConfig } from '../config/app-config';
+import { APP_CONFIG } from '../config/config.tokens';
 import { JobsModule } from '../jobs/jobs.module';
 import { RevisionsModule } from '../revisions/revisions.module';
 import { ChecksController } from './checks.controller';
@@ -20,7 +22,7 @@ import { RecomputeSettings, recomputeSettingsFrom } from './recompute-settings';
   imports: [ActivityModule, RevisionsModule, JobsModule],
   controllers: [ChecksController, LimitSetsController],
   providers: [
-    { provide: RecomputeSettings, useFactory: () => recomputeSettingsFrom(process.env) },
+    { provide: RecomputeSettings, inject: [APP_CONFIG], useFactory: (config: AppConfig) => recomputeSettingsFrom(config, process.env) },
     LimitSetsRepository,
     LimitSetsService,
     LimitSetChangesService,

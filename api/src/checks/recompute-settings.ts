@@ -1,3 +1,4 @@
+import type { AppConfig } from '../config/app-config';
 import { parseImportSettings } from '../imports/import-settings';
 
 /**
@@ -13,8 +14,11 @@ export class RecomputeSettings {
   jobExpireSeconds = 300;
 }
 
-export function recomputeSettingsFrom(env: Record<string, string | undefined>): RecomputeSettings {
-  const s = parseImportSettings(env);
+type ImportJobNumbers = Pick<RecomputeSettings, 'jobThresholdMembers' | 'jobRetries' | 'jobExpireSeconds'>;
+
+/** From the api's configuration when it carries the import settings, else from the IMPORT_* variables. */
+export function recomputeSettingsFrom(config: AppConfig, env: Record<string, string | undefined>): RecomputeSettings {
+  const s: ImportJobNumbers = (config as AppConfig & { imports?: ImportJobNumbers }).imports ?? parseImportSettings(env);
   const out = new RecomputeSettings();
   out.jobThresholdMembers = s.jobThresholdMembers;
   out.jobRetries = s.jobRetries;
