@@ -96,7 +96,7 @@ describe('the daily digest', () => {
     const link = (projectId: number, flagId: number) => `${TEST_PUBLIC_URL}/projects/${projectId}/flags/${flagId}`;
     expect(rafe.text).toBe(
       [
-        'Good morning Rafe,',
+        'Hello Rafe,',
         '',
         `3 flags wait on you on Sagline today (${DAY}), 1 overdue.`,
         '',

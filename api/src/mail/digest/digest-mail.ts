@@ -36,7 +36,7 @@ export function digestMail(m: DigestMailInput): OutgoingMail {
   const section = (title: string, list: WaitingFlag[]) => (list.length ? [`${title} (${list.length})`, ...list.map((i) => itemLine(i, m)), ''] : []);
   const first = m.name.split(/\s+/)[0] || m.name;
   const text = [
-    `Good morning ${first},`,
+    `Hello ${first},`,
     '',
     `${plural(m.items.length, 'flag')} wait${m.items.length === 1 ? 's' : ''} on you on Sagline today (${m.day})${overdue.length ? `, ${overdue.length} overdue` : ''}.`,
     '',
