@@ -3,7 +3,9 @@ import type { Response } from 'supertest';
 import { ApiClient } from './support/api-client';
 import { expectError } from './support/expect-error';
 import { Factories, PASSWORD, type TestProject, type TestUser } from './support/factories';
-import { MembersFactory, type MemberSpec } from './support/members-factory';
+import { ImportCommitService } from '../src/imports/import-commit.service';
+import { ImportsService } from '../src/imports/imports.service';
+import { MembersFactory, scheduleCsv, type MemberSpec } from './support/members-factory';
 import { TestApp } from './support/test-app';
 
 /**
@@ -243,6 +245,29 @@ describe('limit sets: presets, copies, edits and the recompute', () => {
     expect(body.details!.map((d) => d.path)).toEqual(['members.B1', 'members.B2', 'members.B3']);
     expect(await snapshot()).toEqual(before);
     expect(await verdicts()).toEqual({ B1: 'pass', B2: 'pass', B3: 'pass' });
+  });
+
+  it('an import commit that waited for a change of the limit set is refused, not stored with the old verdicts', async () => {
+    const imports = t.app.get(ImportsService, { strict: false });
+    const committer = t.app.get(ImportCommitService, { strict: false });
+    const engineerId = (await t.knex('project_roles').where({ project_id: project.id, role: 'engineer' }).first('user_id')).user_id;
+    const preview = await imports.preview(project.id, engineerId, { fileName: 'rev-b.csv', bytes: Buffer.from(scheduleCsv(MEMBERS), 'utf8') });
+    const revisionsBefore = await t.knex('revisions').where({ project_id: project.id }).count('* as n').first();
+
+    // A change of the set holds the project's lock (as applyChange does) while the commit arrives.
+    const change = await t.knex.transaction();
+    await change('projects').where({ id: project.id }).forUpdate().first('id');
+    const commit = committer.commit(project.id, preview.draftId, { label: null, actorId: engineerId }).then(
+      () => 'committed',
+      (e: { code?: string; message?: string }) => `${e.code}: ${e.message}`,
+    );
+    await new Promise((r) => setTimeout(r, 500));
+    const activeId = (await change('projects').where({ id: project.id }).first('limit_set_id')).limit_set_id;
+    await change('limit_sets').where({ id: activeId }).update({ version: change.raw('version + 1') });
+    await change.commit();
+
+    expect(await commit).toMatch(/^CONFLICT: The project's limit set changed after this upload was checked/);
+    expect(await t.knex('revisions').where({ project_id: project.id }).count('* as n').first()).toEqual(revisionsBefore);
   });
 
   it('copies the current set, and a copy of a copy keeps its sources', async () => {

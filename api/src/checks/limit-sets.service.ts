@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { US_IBC_2021_ACI_318_19, type LimitSet } from '@sagline/common/limits';
 import { notFound } from '../common/api-error';
-import { TransactionRunner } from '../db/transaction';
+import { TransactionRunner, type Trx } from '../db/transaction';
 import { LimitSetsRepository, toLimitSet, type LimitSetRow } from './limit-sets.repository';
 
 /**
@@ -41,5 +41,16 @@ export class LimitSetsService {
       return (await this.repo.findForProject(projectId, trx))!;
     });
     return { row, set: toLimitSet(row) };
+  }
+
+  /**
+   * Whether the project still points at this set at this version, read in
+   * the caller's transaction after it took the project's lock (a change of
+   * the set holds the same lock): an import commit checks this so it never
+   * stores verdicts of a set that changed while it waited.
+   */
+  async isCurrent(trx: Trx, projectId: number, setId: number, version: number): Promise<boolean> {
+    const row = await this.repo.findForProject(projectId, trx);
+    return row !== undefined && row.id === setId && row.version === version;
   }
 }

@@ -94,6 +94,10 @@ export class ImportCommitService {
         if (options.idempotent) return done;
         throw new ApiError('CONFLICT', `This upload was already committed as revision ${done.number}; open it from the revisions list.`);
       }
+      // A change of the limit set holds the same lock: it may have landed while this commit waited.
+      if (!(await this.limitSets.isCurrent(trx, projectId, limitRow.id, limitRow.version))) {
+        throw new ApiError('CONFLICT', "The project's limit set changed after this upload was checked, so its verdicts may be out of date. Upload the schedule again to see the new verdicts, then commit.");
+      }
       if (!(await this.drafts.take(trx, projectId, draftId))) throw notFound('This upload was discarded or has expired; upload the schedule again.');
 
       progress(0.32, 'Comparing with the previous revision');
