@@ -54,6 +54,8 @@ async function cellUnder(table: Locator, row: Locator, header: string): Promise<
 }
 
 test('checker filters failing members of a level, reads the calculation, raises a flag; the engineer answers; the checker closes it', async ({ browser }) => {
+  // Two people, several screens and a search for a member with several loads: more than the default two minutes.
+  test.setTimeout(300_000);
   // ---- The checker finds the failing members of one level.
   const checker = await signedIn(browser, CHECKER.email);
   await checker.getByText('Halvercote Yard').first().click();
@@ -89,12 +91,24 @@ test('checker filters failing members of a level, reads the calculation, raises 
   await expect(checker).toHaveURL(/sort=-utilization/);
   await shot(checker, '02-failing-on-level');
 
-  // ---- One member: drawing, checks, contributions.
-  const first = rows.first();
-  const mark = (await first.locator('td').first().innerText()).trim();
-  await first.getByRole('link', { name: mark }).click();
-  await expect(checker).toHaveURL(new RegExp(`/members/${encodeURIComponent(mark)}$`));
-  await expect(checker.getByRole('heading', { name: mark })).toBeVisible();
+  // ---- One member: drawing, checks, contributions. The worst one whose governing
+  // deflection has more than one load in it, so the sum is a real sum.
+  const marks = (await rows.locator('td:first-child').allInnerTexts()).map((t) => t.trim());
+  const contributions = checker.getByRole('table', { name: 'Contributions' });
+  let mark = '';
+  for (const candidate of marks) {
+    await members.getByRole('link', { name: candidate, exact: true }).click();
+    await expect(checker).toHaveURL(new RegExp(`/members/${encodeURIComponent(candidate)}$`));
+    await expect(checker.getByRole('heading', { name: candidate })).toBeVisible();
+    await expect(contributions.getByTestId('contributions-sum')).toBeVisible();
+    if ((await contributions.locator('tbody tr.ant-table-row').count()) >= 2) {
+      mark = candidate;
+      break;
+    }
+    await checker.goBack();
+    await expect(rows.first()).toBeVisible();
+  }
+  expect(mark, `a failing member of ${levelName} with two or more loads in its governing deflection`).not.toBe('');
   const drawing = checker.getByTestId('beam-drawing');
   await expect(drawing).toBeVisible();
   await expect(drawing.getByTestId('support').first()).toBeVisible();
@@ -106,7 +120,6 @@ test('checker filters failing members of a level, reads the calculation, raises 
   await expect(governingRow).toHaveCount(1);
   await expect(governingRow).toContainText('Fail');
   const checkDeflection = await cellUnder(checks, governingRow, 'Deflection');
-  const contributions = checker.getByRole('table', { name: 'Contributions' });
   const sumRow = contributions.getByTestId('contributions-sum');
   await expect(sumRow).toBeVisible();
   const sumText = (await sumRow.locator('td').nth(1).innerText()).trim();
@@ -114,7 +127,7 @@ test('checker filters failing members of a level, reads the calculation, raises 
   await expect(contributions.getByTestId('contributions-check')).toContainText('equal');
   // Each printed line, added up, is the sum to its last printed digit.
   const lines = await contributions.locator('tbody tr.ant-table-row').all();
-  expect(lines.length).toBeGreaterThan(0);
+  expect(lines.length).toBeGreaterThanOrEqual(2);
   const value = (t: string) => Number(t.replace('−', '-').replace(/[^\d.+-]/g, ''));
   let added = 0;
   for (const line of lines) added += value(await cellUnder(contributions, line, 'Contribution'));

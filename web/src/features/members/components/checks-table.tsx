@@ -40,7 +40,7 @@ export function ChecksTable({
       rowKey={resultKey}
       pagination={false}
       dataSource={detail.results}
-      scroll={{ x: 1120 }}
+      scroll={{ x: 1180 }}
       rowClassName={(r) => (resultKey(r) === selected ? 'ant-table-row-selected' : '')}
       locale={{ emptyText: 'No check of the limit set applies to this member (its category, material or loads).' }}
       columns={[
@@ -100,6 +100,7 @@ export function ChecksTable({
         {
           title: 'Limit',
           key: 'limit',
+          width: 230,
           render: (_v, r) => {
             const rule = rules.get(r.ruleId);
             return (
@@ -120,8 +121,8 @@ export function ChecksTable({
             );
           },
         },
-        { title: 'Utilisation', dataIndex: 'utilization', width: 150, render: (_v, r) => <UtilisationBar value={r.utilization} /> },
-        { title: 'Verdict', dataIndex: 'pass', width: 75, render: (_v, r) => <VerdictTag verdict={r.pass ? 'pass' : 'fail'} /> },
+        { title: 'Utilisation', dataIndex: 'utilization', width: 130, render: (_v, r) => <UtilisationBar value={r.utilization} width={64} /> },
+        { title: 'Verdict', dataIndex: 'pass', width: 72, render: (_v, r) => <VerdictTag verdict={r.pass ? 'pass' : 'fail'} /> },
         {
           title: 'I required',
           dataIndex: 'requiredI',

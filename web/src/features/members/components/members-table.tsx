@@ -83,7 +83,7 @@ export function MembersTable({
     category: {
       title: 'Category',
       dataIndex: 'category',
-      width: 150,
+      width: 140,
       ellipsis: { showTitle: true },
       render: (_v, m) => categoryLabel(m.category),
     },
@@ -96,7 +96,7 @@ export function MembersTable({
       render: (_v, m) => m.section ?? <Typography.Text type="secondary">—</Typography.Text>,
     },
     supports: { title: 'Supports', dataIndex: 'supports', width: 160, ellipsis: { showTitle: true }, render: (_v, m) => supportsLabel(m.supports) },
-    spans: { title: 'Spans', key: 'spans', width: 125, ellipsis: { showTitle: true }, render: (_v, m) => spansText(m, unitSystem) },
+    spans: { title: 'Spans', key: 'spans', width: 115, ellipsis: { showTitle: true }, render: (_v, m) => spansText(m, unitSystem) },
     length: {
       title: 'Length',
       dataIndex: 'length',
@@ -107,16 +107,16 @@ export function MembersTable({
     governingCheck: {
       title: 'Governing check',
       dataIndex: 'governingCheck',
-      width: 140,
+      width: 130,
       ellipsis: { showTitle: true },
       render: (_v, m) => m.governingCheck ?? <Typography.Text type="secondary">—</Typography.Text>,
     },
     utilization: {
       title: 'Utilisation',
       dataIndex: 'maxUtilization',
-      width: 150,
+      width: 140,
       sortDirections: ['descend', 'ascend'],
-      render: (_v, m) => <UtilisationBar value={m.maxUtilization} />,
+      render: (_v, m) => <UtilisationBar value={m.maxUtilization} width={80} />,
     },
     verdict: { title: 'Verdict', dataIndex: 'verdict', width: 90, render: (_v, m) => <VerdictTag verdict={m.verdict} /> },
     I: {
