@@ -47,6 +47,50 @@ describe('configuration from the environment', () => {
     expect(c).toMatchObject({ publicUrl: 'https://sagline.example.com', secureCookies: true, mailboxUrl: null, signInRateLimit: { limit: 5, windowMs: 30_000 }, trustProxy: 1 });
   });
 
+  it('reads the import caps and job settings with the rest, defaults first', () => {
+    const c = parseConfig({ DATABASE_URL: 'postgres://postgres@127.0.0.1:54329/sagline' });
+    expect(c.imports).toEqual({
+      maxFileBytes: 20 * 1024 * 1024,
+      maxRows: 20_000,
+      jobThresholdMembers: 2000,
+      maxUnzippedBytes: 200 * 1024 * 1024,
+      maxZipRatio: 200,
+      draftHours: 24,
+      jobExpireSeconds: 300,
+      jobRetries: 3,
+    });
+    expect(c.jobs).toEqual({ worker: true, pollSeconds: 2, maintenanceSeconds: 30 });
+    const set = parseConfig({
+      DATABASE_URL: 'postgres://postgres@127.0.0.1:54329/sagline',
+      IMPORT_MAX_FILE_MB: '1.5',
+      IMPORT_MAX_ROWS: '50',
+      IMPORT_JOB_THRESHOLD: '0',
+      IMPORT_JOB_EXPIRE_SECONDS: '8',
+      JOBS_WORKER: 'off',
+      JOBS_POLL_SECONDS: '0.5',
+    });
+    expect(set.imports).toMatchObject({ maxFileBytes: 1.5 * 1024 * 1024, maxRows: 50, jobThresholdMembers: 0, jobExpireSeconds: 8 });
+    expect(set.jobs).toEqual({ worker: false, pollSeconds: 0.5, maintenanceSeconds: 30 });
+  });
+
+  it('lists bad import and job settings in the same one error as the others', () => {
+    let error: unknown;
+    try {
+      parseConfig({ PORT: '0', IMPORT_MAX_ROWS: 'many', IMPORT_MAX_ZIP_RATIO: '1', JOBS_WORKER: 'sometimes', JOBS_POLL_SECONDS: '0.1' });
+    } catch (e) {
+      error = e;
+    }
+    expect(error).toBeInstanceOf(ConfigError);
+    expect((error as ConfigError).problems).toEqual([
+      'DATABASE_URL is missing: give a PostgreSQL URL such as postgres://user@127.0.0.1:5432/sagline',
+      'PORT "0" is not a whole number from 1 to 65535',
+      'IMPORT_MAX_ROWS "many" is not a number from 1 to 1000000',
+      'IMPORT_MAX_ZIP_RATIO "1" is not a number from 2 to 10000',
+      'JOBS_WORKER "sometimes" is not on or off',
+      'JOBS_POLL_SECONDS "0.1" is not a number of seconds from 0.5 to 3600',
+    ]);
+  });
+
   it('does not print a database password in its errors', () => {
     expect(() => parseConfig({ DATABASE_URL: 'mysql://app:hunter2@db/sagline' })).toThrow(/mysql:\/\/app:\*\*\*@db\/sagline/);
   });

@@ -1,4 +1,5 @@
 import path from 'node:path';
+import { parseImportVariables, parseJobVariables, type ImportConfig, type JobConfig } from './import-job-config';
 
 /** The typed configuration every part of the api reads (never `process.env`). */
 export interface AppConfig {
@@ -23,6 +24,10 @@ export interface AppConfig {
   trustProxy: boolean | number | string;
   /** How often queued e-mails are retried; 0 turns the timer off (tests flush by hand). */
   mailRetryMs: number;
+  /** Caps and thresholds of schedule imports (IMPORT_*, import-job-config.ts). */
+  imports: ImportConfig;
+  /** This process's part in background jobs (JOBS_*, import-job-config.ts). */
+  jobs: JobConfig;
 }
 
 /** Every bad variable, listed in one error so a deploy fails once, not once per variable. */
@@ -53,6 +58,7 @@ const DURATION_UNITS: Record<string, number> = { ms: 1, s: 1000, m: 60_000, h: 3
  *   front, `loopback` for a proxy on the same machine, `false` when clients connect directly.
  *   It decides which address the rate limit counts and whether `Secure` cookies see HTTPS.
  * - MAIL_RETRY_SECONDS (60): how often queued e-mails are retried; 0 disables the timer
+ * - IMPORT_* and JOBS_*: import caps and background jobs, listed in import-job-config.ts
  */
 export function parseConfig(env: Record<string, string | undefined>): AppConfig {
   const problems: string[] = [];
@@ -106,6 +112,8 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
   const trustProxy = /^\d+$/.test(trustRaw) ? Number(trustRaw) : trustRaw === 'true' ? true : trustRaw === 'false' ? false : trustRaw;
 
   const mailRetryMs = integer('MAIL_RETRY_SECONDS', value('MAIL_RETRY_SECONDS') ?? '60', 0, 86_400, problems) * 1000;
+  const imports = parseImportVariables(env, problems);
+  const jobs = parseJobVariables(env, problems);
 
   if (problems.length) throw new ConfigError(problems);
   return {
@@ -123,6 +131,8 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     signInRateLimit,
     trustProxy,
     mailRetryMs,
+    imports,
+    jobs,
   };
 }
 

@@ -1,6 +1,8 @@
 import { Module } from '@nestjs/common';
 import { ActivityModule } from '../activity/activity.module';
 import { ChecksModule } from '../checks/checks.module';
+import type { AppConfig } from '../config/app-config';
+import { APP_CONFIG } from '../config/config.tokens';
 import { FlagsModule } from '../flags/flags.module';
 import { JobsModule } from '../jobs/jobs.module';
 import { OverviewModule } from '../overview/overview.module';
@@ -8,7 +10,7 @@ import { RevisionsModule } from '../revisions/revisions.module';
 import { DraftCache } from './draft-cache';
 import { ImportCommitService } from './import-commit.service';
 import { ImportJobs } from './import-jobs';
-import { ImportSettings, parseImportSettings } from './import-settings';
+import { ImportSettings, importSettingsOf } from './import-settings';
 import { ImportsController } from './imports.controller';
 import { ImportsRepository } from './imports.repository';
 import { ImportsService } from './imports.service';
@@ -20,7 +22,7 @@ import { UploadInterceptor } from './upload.interceptor';
   imports: [ActivityModule, ChecksModule, RevisionsModule, JobsModule, OverviewModule, FlagsModule],
   controllers: [ImportsController],
   providers: [
-    { provide: ImportSettings, useFactory: () => parseImportSettings(process.env) },
+    { provide: ImportSettings, inject: [APP_CONFIG], useFactory: (config: AppConfig) => importSettingsOf(config) },
     ImportsRepository,
     DraftCache,
     ImportsService,

@@ -10,6 +10,16 @@ import { createTestDatabase } from './pg-admin';
 
 export const TEST_PUBLIC_URL = 'http://sagline.test';
 
+/**
+ * The api's configuration as a process started now would read it: the test
+ * settings, the import and job settings (IMPORT_*, JOBS_*) a spec put in
+ * process.env before starting or restarting the api, then `overrides`.
+ */
+function configOf(env: Record<string, string>, overrides: Record<string, string> = {}): AppConfig {
+  const settings = Object.fromEntries(Object.entries(process.env).filter(([k]) => /^(IMPORT|JOBS)_/.test(k)));
+  return parseConfig({ ...env, ...settings, ...overrides });
+}
+
 export interface TestAppOptions {
   /** Environment overrides, as the api would read them (e.g. SIGN_IN_RATE_LIMIT). */
   env?: Record<string, string>;
@@ -29,7 +39,9 @@ export class TestApp {
   http!: Server;
 
   private constructor(
-    readonly config: AppConfig,
+    public config: AppConfig,
+    private readonly env: Record<string, string>,
+    private readonly overrides: Record<string, string>,
     readonly knex: Knex,
     readonly mail: FakeSmtp | null,
     private readonly dropDb: () => Promise<void>,
@@ -39,7 +51,7 @@ export class TestApp {
   static async start(options: TestAppOptions = {}): Promise<TestApp> {
     const db = await createTestDatabase();
     const mail = options.withoutSmtp ? null : await startFakeSmtp({ smtpPort: 0, httpPort: 0 });
-    const config = parseConfig({
+    const env: Record<string, string> = {
       NODE_ENV: 'test',
       DATABASE_URL: db.url,
       PUBLIC_URL: TEST_PUBLIC_URL,
@@ -49,9 +61,8 @@ export class TestApp {
       SIGN_IN_RATE_LIMIT: '1000/15m',
       MAIL_RETRY_SECONDS: '0',
       WEB_DIST: '/nonexistent-web-dist',
-      ...options.env,
-    });
-    const t = new TestApp(config, createKnex(db.url, { min: 0, max: 3 }), mail, db.drop, options.quiet ?? false);
+    };
+    const t = new TestApp(configOf(env, options.env), env, options.env ?? {}, createKnex(db.url, { min: 0, max: 3 }), mail, db.drop, options.quiet ?? false);
     await t.boot();
     return t;
   }
@@ -64,6 +75,7 @@ export class TestApp {
   /** Closes the api and starts a new one on the same database (what a deploy or crash does). */
   async restart(): Promise<void> {
     await this.app.close();
+    this.config = configOf(this.env, this.overrides);
     await this.boot();
   }
 
