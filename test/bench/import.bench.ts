@@ -1,6 +1,6 @@
 /**
  * Import benchmark (a script, not a test), from the repository root:
- *   npx tsx test/bench/import.bench.ts [members]      (default 10,000)
+ *   npx tsx test/bench/import.bench.ts [members] [--runs N]   (default 10,000 members, 3 runs)
  * Writes a member schedule workbook, then times
  *   (a) exceljs merely reading it (Workbook.xlsx.load), and
  *   (b) the whole import through the api's import service: upload checks,
@@ -9,13 +9,17 @@
  *       PostgreSQL,
  * and prints both, their ratio (target ≤ 2×) and the peak resident memory of
  * the import (target < 500 MB). Each of (a) and (b) runs in a fresh process
- * of its own, twice, and the faster run counts: a fresh process is what an
- * upload meets after a deploy, and its peak memory is then the import's own.
+ * of its own, three times, interleaved (a, b, a, b, a, b) so that both sides
+ * meet the same load on a shared machine; the fastest run of each counts, and
+ * the ratio of each pair is printed too. A fresh process is what an upload
+ * meets after a deploy, and its peak memory is then the import's own.
+ * `--runs N` changes the number of pairs.
  * PostgreSQL: DATABASE_URL's server when set, else the private cluster in
  * .data/bench on port 54349; always a throwaway database, dropped at the end.
  */
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { performance } from 'node:perf_hooks';
@@ -54,7 +58,6 @@ async function measureRead(file: string): Promise<Measure> {
 // ------------------------------------------------------------------ child: (b)
 async function measureImport(file: string, url: string, projectId: number, userId: number): Promise<Measure> {
   apiSources();
-  process.env.JOBS_WORKER = 'off';
   const { Module } = require('@nestjs/common') as typeof import('@nestjs/common');
   const { NestFactory } = require('@nestjs/core') as typeof import('@nestjs/core');
   const { parseConfig } = require(path.join(ROOT, 'api/src/config/app-config.ts')) as typeof import('../../api/src/config/app-config');
@@ -69,7 +72,7 @@ async function measureImport(file: string, url: string, projectId: number, userI
 
   // The modules of the api's command line: configuration, database, guards, imports.
   class BenchModule {}
-  Module({ imports: [ConfigModule.forRoot(parseConfig({ DATABASE_URL: url, NODE_ENV: 'test' })), DbModule, AuthModule, ImportsModule] })(BenchModule);
+  Module({ imports: [ConfigModule.forRoot(parseConfig({ DATABASE_URL: url, NODE_ENV: 'test', JOBS_WORKER: 'off' })), DbModule, AuthModule, ImportsModule] })(BenchModule);
   const app = await NestFactory.createApplicationContext(BenchModule, { logger: ['error', 'warn'] });
   try {
     // A project's limit-set copy is made once, on its first use, not per import: not timed.
@@ -103,7 +106,7 @@ function inChild(args: string[]): Measure {
 
 // ------------------------------------------------------------------ parent
 async function main(): Promise<void> {
-  const n = Number(process.argv[2] ?? 10_000);
+  const n = /^\d+$/.test(process.argv[2] ?? '') ? Number(process.argv[2]) : 10_000;
   const { floorBeams, xlsxOf } = require(path.join(ROOT, 'api/test/fixtures/schedule-files.ts')) as typeof import('../../api/test/fixtures/schedule-files');
   const { createKnex, migrateLatest, hashPassword } = require(path.join(ROOT, 'database/index.ts')) as typeof import('../../database/index');
 
@@ -138,16 +141,21 @@ async function main(): Promise<void> {
     await migrateLatest(knex);
     const [user] = await knex('users').insert({ email: 'bench.engineer@firm.example', name: 'Bench Engineer', password_hash: await hashPassword('bench-password-1') }).returning('id');
     // One project per run, so every run is a first revision (no diff against an earlier one).
+    const runs = process.argv.includes('--runs') ? Number(process.argv[process.argv.indexOf('--runs') + 1]) : 3;
     const projects: number[] = [];
-    for (let run = 0; run < 2; run++) {
+    for (let run = 0; run < runs; run++) {
       const [p] = await knex('projects').insert({ name: `Bench ${run + 1}`, number: `B-${run + 1}`, unit_system: 'SI' }).returning('id');
       await knex('levels').insert(LEVELS.map((name, position) => ({ project_id: p.id, name, position })));
       await knex('project_roles').insert({ project_id: p.id, user_id: user.id, role: 'engineer' });
       projects.push(p.id);
     }
 
-    const reads = [0, 1].map(() => inChild(['read', file]));
-    const imports = projects.map((p) => inChild(['import', file, url, String(p), String(user.id)]));
+    const reads: Measure[] = [];
+    const imports: Measure[] = [];
+    for (const p of projects) {
+      reads.push(inChild(['read', file]));
+      imports.push(inChild(['import', file, url, String(p), String(user.id)]));
+    }
     const a = reads.reduce((x, y) => (y.ms < x.ms ? y : x));
     const b = imports.reduce((x, y) => (y.ms < x.ms ? y : x));
     const s = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
@@ -155,7 +163,8 @@ async function main(): Promise<void> {
     say(`(b) upload → committed:  ${s(b.ms)}   (runs ${imports.map((r) => s(r.ms)).join(', ')}; best: upload + preview ${s(b.previewMs!)}, commit ${s(b.commitMs!)})`);
     say(`    stored: ${b.stored!.members} members (${b.stored!.failing} failing), ${b.stored!.loads} loads, ${b.stored!.results} results`);
     const ratio = b.ms / a.ms;
-    say(`ratio (b) / (a):         ${ratio.toFixed(2)}×   (target ≤ 2×: ${ratio <= 2 ? 'met' : 'NOT met'})`);
+    say(`ratio (b) / (a):         ${ratio.toFixed(2)}×   (target ≤ 2×: ${ratio <= 2 ? 'met' : 'NOT met'}; pair by pair ${imports.map((r, i) => `${(r.ms / reads[i].ms).toFixed(2)}×`).join(', ')})`);
+    say(`machine:                 ${os.cpus().length} cores, load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')}`);
     const rss = Math.max(...imports.map((r) => r.rssMb));
     say(`peak RSS of the import:  ${rss} MB   (target < 500 MB: ${rss < 500 ? 'met' : 'NOT met'})`);
   } finally {
