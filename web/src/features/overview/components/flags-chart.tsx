@@ -11,7 +11,7 @@ export const CHART_SERIES = [
 
 type SeriesKey = (typeof CHART_SERIES)[number]['key'];
 
-const W = 720;
+const W = 960;
 const H = 240;
 const PAD = { left: 40, right: 12, top: 12, bottom: 28 };
 
@@ -40,7 +40,18 @@ export function chartSummary(points: FlagsOverTimePoint[]): string {
  * growing under the open one. Drawn to scale from the server's daily counts;
  * no chart library, so it prints and renders offline the same way.
  */
-export function FlagsChart({ points, compact = false }: { points: FlagsOverTimePoint[]; compact?: boolean }) {
+/**
+ * The days worth drawing: leading days before the first flag are left out
+ * (a long flat line says nothing), keeping at least `minDays`.
+ */
+export function visibleDays(points: FlagsOverTimePoint[], minDays = 14): FlagsOverTimePoint[] {
+  const first = points.findIndex((p) => p.open + p.answered + p.closed + p.waived + p.raised > 0);
+  const start = first < 0 ? Math.max(0, points.length - minDays) : Math.max(0, Math.min(first - 1, points.length - minDays));
+  return points.slice(start);
+}
+
+export function FlagsChart({ points: all, compact = false }: { points: FlagsOverTimePoint[]; compact?: boolean }) {
+  const points = visibleDays(all);
   const height = compact ? 200 : H;
   const plotW = W - PAD.left - PAD.right;
   const plotH = height - PAD.top - PAD.bottom;
@@ -89,7 +100,7 @@ export function FlagsChart({ points, compact = false }: { points: FlagsOverTimeP
         ))}
         {n > 0 && CHART_SERIES.map((s) => <path key={s.key} d={area(s.key)} fill={s.color} fillOpacity={0.85} stroke={s.color} strokeWidth={1} data-series={s.key} />)}
         {points.map((p, i) =>
-          i % labelEvery === 0 || i === n - 1 ? (
+          (i % labelEvery === 0 && n - 1 - i >= labelEvery / 2) || i === n - 1 ? (
             <text key={p.day} x={x(i)} y={height - 8} textAnchor={i === n - 1 && n > 1 ? 'end' : i === 0 && n > 1 ? 'start' : 'middle'} fontSize={11} fill={palette.slateLight}>
               {dayLabel(p.day)}
             </text>
