@@ -336,6 +336,35 @@ describe('limit sets: a large project recomputes as a background job', () => {
     expect(page.items.map((m) => m.mark).sort()).toEqual(['B1', 'B3']);
     expect(await t.knex('activity').where({ project_id: project.id, action: 'limit_set.applied' }).count('* as n').first()).toEqual({ n: '1' });
   });
+
+  it('a job whose set cannot check the members fails with the reason, and nothing of the change is stored', async () => {
+    const base = `/api/projects/${project.id}/limit-sets`;
+    const aci = (await manager.post(base, { fromPreset: 'aci-318-19' })).body as ProjectLimitSetView;
+    const before = {
+      active: await t.knex('projects').where({ id: project.id }).first('limit_set_id'),
+      results: await t.knex('results').orderBy('id').select('member_id', 'check_name', 'pass'),
+      members: await t.knex('members').orderBy('id').select('id', 'verdict'),
+      activity: await t.counts(['activity']),
+    };
+    const res = await manager.post(`${base}/${aci.id}/use`, {});
+    expect(res.status).toBe(202);
+    let job: LimitSetJobStatus | undefined;
+    for (let i = 0; i < 120; i++) {
+      job = (await manager.get(`${base}/jobs/${res.body.jobId}`)).body as LimitSetJobStatus;
+      if (job.state === 'completed' || job.state === 'failed') break;
+      await new Promise((r) => setTimeout(r, 250));
+    }
+    expect(job).toMatchObject({ state: 'failed', error: { statusCode: 400, code: 'VALIDATION_FAILED' } });
+    expect(job!.error!.message).toMatch(/cannot check 3 members of revision 1, so nothing was changed/);
+    expect(job!.error!.details!.map((d) => d.path)).toEqual(['members.B1', 'members.B2', 'members.B3']);
+    expect({
+      active: await t.knex('projects').where({ id: project.id }).first('limit_set_id'),
+      results: await t.knex('results').orderBy('id').select('member_id', 'check_name', 'pass'),
+      members: await t.knex('members').orderBy('id').select('id', 'verdict'),
+      activity: await t.counts(['activity']),
+    }).toEqual(before);
+    expect(((await manager.get(base)).body as LimitSetsOverview).openJob).toBeNull();
+  });
 });
 
 describe('limit sets: role × route matrix', () => {

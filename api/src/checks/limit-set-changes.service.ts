@@ -261,7 +261,7 @@ export class LimitSetChangesService {
       row.kind === 'edit'
         ? { kind: 'edit', setId: row.limit_set_id, edit: row.request.edit as CheckedEdit }
         : { kind: 'use', setId: row.limit_set_id, version: (row.request.version as number | null) ?? undefined };
-    return this.applyChange(row.project_id, row.requested_by, change, onProgress);
+    return this.applyChange(row.project_id, row.requested_by, change, onProgress, row.id);
   }
 
   /**
@@ -270,7 +270,7 @@ export class LimitSetChangesService {
    * failure (a member the new set cannot check, a stale edit) rolls all of
    * it back.
    */
-  async applyChange(projectId: number, actorId: number | null, change: ActiveChange, onProgress: Progress = () => undefined): Promise<LimitSetChangeResponse> {
+  async applyChange(projectId: number, actorId: number | null, change: ActiveChange, onProgress: Progress = () => undefined, jobId?: string): Promise<LimitSetChangeResponse> {
     const actor = await this.actorName(actorId);
     return this.tx.run(async (trx) => {
       onProgress(0.02, 'Waiting for other changes of this project');
@@ -323,7 +323,9 @@ export class LimitSetChangesService {
         });
       }
       onProgress(0.99, 'Saving');
-      return { set: toProjectLimitSetView(after, after.id), recompute };
+      const response = { set: toProjectLimitSetView(after, after.id), recompute };
+      if (jobId) await this.jobs.completedIn(trx, jobId, response);
+      return response;
     });
   }
 

@@ -2,6 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import type { Knex } from '@sagline/database';
 import type { LimitSetJobState } from '@sagline/common/api-types';
 import { KNEX } from '../db/db.tokens';
+import type { Trx } from '../db/transaction';
 
 export interface RecomputeJobRow {
   id: string;
@@ -62,6 +63,15 @@ export class RecomputeJobsRepository {
     await this.knex('recompute_jobs')
       .where({ id, state: 'running' })
       .update({ progress: Math.min(1, Math.max(0, progress)), step, updated_at: this.knex.fn.now() });
+  }
+
+  /**
+   * Marks the job done INSIDE the work's transaction, so the change and the
+   * job's completion are stored together: a retry after a crash between the
+   * commit and a separate write would otherwise apply the change twice.
+   */
+  async completedIn(trx: Trx, id: string, result: unknown): Promise<void> {
+    await trx('recompute_jobs').where({ id }).update({ state: 'completed', progress: 1, step: 'Done', result: JSON.stringify(result), error: null, updated_at: trx.fn.now() });
   }
 
   async completed(id: string, result: unknown): Promise<void> {

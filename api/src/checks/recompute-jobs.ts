@@ -45,8 +45,8 @@ export class RecomputeJobs implements OnModuleInit {
       this.jobs.progress(row.id, fraction, step).catch((e: unknown) => this.logger.warn(`progress of job ${row.id}: ${String(e)}`));
     };
     try {
-      const result = await this.changes.applyJob(row, onProgress);
-      await this.jobs.completed(row.id, result);
+      // applyJob marks the job completed in its own transaction.
+      await this.changes.applyJob(row, onProgress);
     } catch (e) {
       if (e instanceof ApiError && e.status < 500) {
         await this.jobs.failed(row.id, { statusCode: e.status, code: e.code, message: e.message, ...(e.details ? { details: e.details } : {}) }, true);
