@@ -12,6 +12,7 @@ import 'reflect-metadata';
 import { Module, type DynamicModule } from '@nestjs/common';
 import { NestFactory } from '@nestjs/core';
 import { ActivityModule } from './activity/activity.module';
+import { isCalendarDay } from './activity/dto/calendar-day';
 import { AuthModule } from './auth/auth.module';
 import { ConfigError, parseConfig, type AppConfig } from './config/app-config';
 import { ConfigModule } from './config/config.module';
@@ -57,7 +58,7 @@ async function run(command: Command): Promise<void> {
 
 /** The digest of `day` (default today, UTC), written and sent before the command ends. */
 async function sendDigest(app: Awaited<ReturnType<typeof NestFactory.createApplicationContext>>, day?: string): Promise<string> {
-  if (day !== undefined && !/^\d{4}-\d{2}-\d{2}$/.test(day)) throw new Error(`"${day}" is not a day written YYYY-MM-DD; leave it out for today (UTC)`);
+  if (day !== undefined && !isCalendarDay(day)) throw new Error(`"${day}" is not a day written YYYY-MM-DD; leave it out for today (UTC)`);
   const r = await app.get(DigestService).run(day);
   await app.get(OutboxService).settle();
   return `${r.date}: ${r.queued} digest(s) queued and sent, ${r.nothingWaiting} with nothing waiting, ${r.off} turned off, ${r.alreadySent} sent before (unsent ones stay queued for the api's retry)`;

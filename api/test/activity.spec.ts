@@ -141,6 +141,7 @@ describe('the activity feed', () => {
   it('refuses bad filters with a message that says how to fix them, and hides the feed from outsiders', async () => {
     expectError(await viewer.get(`${base}?kind=gossip`), 400, 'VALIDATION_FAILED', /kind.*imports, flags, assignments, sign-offs, limit-sets/);
     expectError(await viewer.get(`${base}?from=2026-13-01`), 400, 'VALIDATION_FAILED', /from.*YYYY-MM-DD/);
+    expectError(await viewer.get(`${base}?to=2026-02-29`), 400, 'VALIDATION_FAILED', /query\.to: must be a calendar date/);
     expectError(await viewer.get(`${base}?from=2026-11-05&to=2026-11-01`), 400, 'VALIDATION_FAILED', /query\.to: is 2026-11-01, before the start day 2026-11-05/);
     expectError(await viewer.get(`${base}?actorId=someone`), 400, 'VALIDATION_FAILED', /actorId/);
     expectError(await viewer.get(`${base}?pageSize=500`), 400, 'VALIDATION_FAILED', /pageSize.*at most 100/);

@@ -151,6 +151,7 @@ describe('the daily digest', () => {
     expectError(await s.c.rafe.patch('/api/me/preferences', { digest: false, admin: true }), 400, 'VALIDATION_FAILED');
     expectError(await s.c.manager.post('/api/digests/send', {}), 403, 'FORBIDDEN');
     expectError(await s.c.admin.post('/api/digests/send', { date: '10/12/2026' }), 400, 'VALIDATION_FAILED', /date: must be a calendar date written YYYY-MM-DD/);
+    expectError(await s.c.admin.post('/api/digests/send', { date: '2026-04-31' }), 400, 'VALIDATION_FAILED', /date: must be a calendar date/);
     expect((await s.c.rafe.get('/api/me/preferences')).body).toEqual({ digest: true });
   });
 

@@ -1,12 +1,10 @@
 import { Type } from 'class-transformer';
-import { IsInt, IsOptional, Matches, Max, Min } from 'class-validator';
+import { IsInt, IsOptional, Max, Min } from 'class-validator';
 import { ACTIVITY_KINDS, ACTIVITY_LIMITS, type ActivityKind } from '@sagline/common/api-types';
 import { SearchText, WordList } from '../../members/dto/list-params';
+import { CalendarDay } from './calendar-day';
 
 export const ACTIVITY_PAGE_SIZE_MAX = ACTIVITY_LIMITS.pageSizeMax;
-
-const DAY = /^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/;
-const DAY_MESSAGE = 'must be a calendar date written YYYY-MM-DD, e.g. 2026-12-02';
 
 export class ListActivityQuery {
   @WordList(ACTIVITY_KINDS)
@@ -19,11 +17,11 @@ export class ListActivityQuery {
   actorId?: number;
 
   @IsOptional()
-  @Matches(DAY, { message: DAY_MESSAGE })
+  @CalendarDay()
   from?: string;
 
   @IsOptional()
-  @Matches(DAY, { message: DAY_MESSAGE })
+  @CalendarDay()
   to?: string;
 
   @SearchText(ACTIVITY_LIMITS.qMax)

@@ -29,7 +29,12 @@ export const DEFAULT_ACTIVITY_VIEW: ActivityView = {
   pageSize: ACTIVITY_LIMITS.pageSizeDefault,
 };
 
-const DAY = /^\d{4}-\d{2}-\d{2}$/;
+/** A real calendar day written YYYY-MM-DD (what the API accepts). */
+function isDay(text: string): boolean {
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(text)) return false;
+  const d = new Date(`${text}T00:00:00Z`);
+  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === text;
+}
 
 function positiveInt(text: string | null, fallback: number, max = Number.MAX_SAFE_INTEGER): number {
   if (text === null || !/^\d{1,9}$/.test(text)) return fallback;
@@ -49,8 +54,8 @@ export function readActivityView(params: URLSearchParams): ActivityView {
   return {
     kind: [...new Set(kinds)],
     actorId: positiveInt(params.get('actorId'), 0) || null,
-    from: DAY.test(from) ? from : '',
-    to: DAY.test(to) ? to : '',
+    from: isDay(from) ? from : '',
+    to: isDay(to) ? to : '',
     q: (params.get('q') ?? '').slice(0, ACTIVITY_LIMITS.qMax),
     page: positiveInt(params.get('page'), 1),
     pageSize: positiveInt(params.get('pageSize'), DEFAULT_ACTIVITY_VIEW.pageSize, ACTIVITY_LIMITS.pageSizeMax),
