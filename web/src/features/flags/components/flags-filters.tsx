@@ -1,6 +1,7 @@
 import { useEffect, useState } from 'react';
-import { Button, Flex, Input, Select, Switch, Tag, Typography } from 'antd';
+import { Button, Flex, Input, Select, Switch, Typography } from 'antd';
 import { FLAG_LIMITS, FLAG_STATUSES, type FlagStatus, type Level } from '@sagline/common/api-types';
+import { useCheckNames } from '../api/get-check-names';
 import { useEngineers } from '../api/get-engineers';
 import { useFlagSummary } from '../api/get-flag-summary';
 import { FLAG_STATUS_LABELS } from './flag-status-tag';
@@ -8,7 +9,7 @@ import { DEFAULT_FLAGS_VIEW, hasFlagFilters, withFlagFilters, type FlagsView } f
 
 /**
  * The filters of the Flags screen: status, assignee (me, nobody, a person),
- * level, overdue only, text in the mark. Each change goes to the address.
+ * level, text in the mark, check, overdue only. Each change goes to the address.
  */
 export function FlagsFilters({
   projectId,
@@ -26,6 +27,7 @@ export function FlagsFilters({
 }) {
   const summary = useFlagSummary(projectId);
   const { engineers } = useEngineers(projectId);
+  const { names: checks } = useCheckNames(projectId);
   const [mark, setMark] = useState(view.mark);
   useEffect(() => setMark(view.mark), [view.mark]);
 
@@ -111,15 +113,25 @@ export function FlagsFilters({
           onSearch={(v) => set({ mark: v.trim() })}
         />
       </label>
+      <label>
+        <Typography.Text type="secondary" style={{ display: 'block', fontSize: 12 }}>
+          Check
+        </Typography.Text>
+        <Select<string>
+          aria-label="Check"
+          allowClear
+          placeholder="Any check"
+          style={{ minWidth: 170 }}
+          value={view.check ?? undefined}
+          onChange={(check) => set({ check: check ?? null })}
+          options={[...new Set([...checks, ...(view.check ? [view.check] : [])])].map((c) => ({ value: c, label: c }))}
+          popupMatchSelectWidth={false}
+        />
+      </label>
       <Flex gap={6} align="center" style={{ height: 32 }}>
         <Switch aria-label="Overdue only" checked={view.overdue} onChange={(overdue) => set({ overdue })} size="small" />
         <Typography.Text>Overdue only</Typography.Text>
       </Flex>
-      {view.check && (
-        <Tag closable onClose={() => set({ check: null })} style={{ height: 24, marginBottom: 4 }}>
-          Check: {view.check}
-        </Tag>
-      )}
       {hasFlagFilters(view) && (
         <Button
           type="link"

@@ -105,7 +105,6 @@ export function FlagsTable({
           key: 'title',
           title: 'Flag',
           dataIndex: 'title',
-          ellipsis: true,
           render: (_v, f) => (
             <>
               <Link to={paths.projectFlag.getHref(projectId, f.id)}>{f.title}</Link>

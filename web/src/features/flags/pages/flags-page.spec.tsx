@@ -11,6 +11,7 @@ function flagsApi(me: Me, myRole: Parameters<typeof halvercote>[0], more: StubRo
     'GET /api/projects/7': { body: halvercote(myRole) },
     'GET /api/projects/7/team': { body: flagTeam },
     'GET /api/projects/7/flags/summary': { body: summary },
+    'GET /api/projects/7/members/facets': { body: { checks: [{ name: 'L/360 live', failCount: 9 }, { name: 'L/240 total', failCount: 4 }] } },
     'GET /api/projects/7/flags': (req) => {
       const status = new URL(req.path, 'http://x').searchParams.get('status');
       const items = status ? flagList.filter((f) => status.split(',').includes(f.status)) : flagList;
@@ -26,7 +27,7 @@ const lastListQuery = (calls: StubRequest[]) => new URL(calls[calls.length - 1].
 describe('Flags screen', () => {
   it('reads the filters from the address (the API names) and sends them to the API as they are', async () => {
     const api = flagsApi(checker, 'checker');
-    const { router } = renderApp('/projects/7/flags?status=open,answered&assignee=4&level=102&overdue=true&mark=L3');
+    const { router } = renderApp('/projects/7/flags?status=open,answered&assignee=4&level=102&overdue=true&mark=L3&check=L%2F360%20live');
     const table = await screen.findByRole('table');
     await within(table).findByText('L3-B07 fails L/360 live (utilisation 1.24)');
 
@@ -36,6 +37,7 @@ describe('Flags screen', () => {
       assignee: '4',
       level: '102',
       mark: 'L3',
+      check: 'L/360 live',
       overdue: 'true',
       sort: '-updated',
       page: '1',
@@ -49,6 +51,7 @@ describe('Flags screen', () => {
     expect(within(filters).getByText('L3')).toBeInTheDocument();
     expect(within(filters).getByRole('switch', { name: 'Overdue only' })).toBeChecked();
     expect(within(filters).getByLabelText('Mark contains')).toHaveValue('L3');
+    expect(within(filters).getByText('L/360 live')).toBeInTheDocument();
     expect(router.state.location.pathname).toBe('/projects/7/flags');
   });
 
