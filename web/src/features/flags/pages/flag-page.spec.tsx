@@ -3,7 +3,7 @@ import type { Me } from '@sagline/common/api-types';
 import { apiError, stubFetch, type StubRoutes } from '@/testing/fetch-stub';
 import { checker, halvercote, manager } from '@/testing/fixtures';
 import { renderApp, setCsrfCookie } from '@/testing/render';
-import { answeredFlag, engineer, engineer2, flagTeam, openFlag, viewer, waivedFlag } from './flags-fixtures';
+import { answeredFlag, engineer, engineer2, flagTeam, openFlag, revisionEvent, viewer, waivedFlag } from './flags-fixtures';
 
 function flagApi(me: Me, myRole: Parameters<typeof halvercote>[0], more: StubRoutes = {}) {
   return stubFetch({
@@ -116,6 +116,24 @@ describe('Flag page', () => {
     expect(api.calls('POST /api/projects/7/flags/12/answer')[0].body).toEqual({ version: 1, body: 'Changed to a W12x26; I is now 204 ×10⁶ mm⁴.' });
     expect(await within(screen.getByLabelText('The flag')).findByText('Answered')).toBeInTheDocument();
     expect(screen.queryByRole('form', { name: 'Answer the flag' })).not.toBeInTheDocument();
+  });
+
+  it('says so when the member left the schedule, with the automatic note', async () => {
+    const left = {
+      ...openFlag,
+      member: null,
+      version: 2,
+      events: [
+        ...openFlag.events,
+        { ...revisionEvent, body: 'Member no longer in revision 2', data: { ...revisionEvent.data, removed: true, verdictAfter: null, changedFields: [] } },
+      ],
+    };
+    flagApi(checker, 'checker', { 'GET /api/projects/7/flags/12': { body: left } });
+    renderApp('/projects/7/flags/12');
+    expect(await screen.findByText('L3-B07 is no longer in the latest revision')).toBeInTheDocument();
+    expect(within(screen.getByLabelText('History of the flag')).getByText('Member no longer in revision 2')).toBeInTheDocument();
+    // It can still be closed or waived.
+    expect(screen.getByRole('tab', { name: 'Close' })).toBeInTheDocument();
   });
 
   it('says so when the flag does not exist', async () => {
