@@ -2,17 +2,17 @@ import { screen, waitFor, within } from '@testing-library/react';
 import { stubFetch, type StubRoutes } from '@/testing/fetch-stub';
 import { checker, halvercote } from '@/testing/fixtures';
 import { renderApp } from '@/testing/render';
-import { facets, memberRow, membersPage, revisions } from './members-fixtures';
+import { facets, memberRow, membersPage, revision1Ref, revisions } from './members-fixtures';
 
 const rows = [
   memberRow(),
   memberRow({ id: 9002, mark: 'L3-B13', grid: 'C/5-6', maxUtilization: 0.62, verdict: 'pass', requiredI: 50e-6, openFlagCount: 0 }),
 ];
 
-function membersApi(more: StubRoutes = {}) {
+function membersApi(more: StubRoutes = {}, role: Parameters<typeof halvercote>[0] = 'checker') {
   return stubFetch({
     'GET /api/auth/me': { body: { user: checker } },
-    'GET /api/projects/7': { body: halvercote('checker') },
+    'GET /api/projects/7': { body: halvercote(role) },
     'GET /api/projects/7/revisions': { body: revisions },
     'GET /api/projects/7/members/facets': { body: facets },
     'GET /api/projects/7/members': (req) => {
@@ -186,5 +186,49 @@ describe('Members: filters live in the URL', () => {
     await user.click(within(row).getByRole('link', { name: 'L3-B12' }));
     await waitFor(() => expect(router.state.location.pathname).toBe('/projects/7/members/L3-B12'));
     expect(router.state.location.state).toEqual({ from: '/projects/7/members?level=102' });
+  });
+
+  it('shows an earlier revision from the address: its members, its facets and its results workbook', async () => {
+    const api = membersApi({
+      'GET /api/projects/7/members': (req) => {
+        const q = new URL(req.path, 'http://x').searchParams;
+        return { body: membersPage(rows, { revision: q.get('revision') === '31' ? revision1Ref : revisions[0] }) };
+      },
+    });
+    const { user, router } = renderApp('/projects/7/members?verdict=fail');
+    const table = await screen.findByRole('table', { name: 'Members' });
+    await within(table).findByText('L3-B12');
+    expect(await screen.findByRole('link', { name: 'Results workbook of revision 2' })).toBeInTheDocument();
+
+    await pick(user, 'Revision', 'Revision 1, Rev A, scheme design');
+    await waitFor(() => expect(router.state.location.search).toBe('?revision=31&verdict=fail'));
+    await waitFor(() => expect(lastListQuery(api)).toBe('revision=31&verdict=fail'));
+    expect(api.calls('GET /api/projects/7/members/facets').some((r) => r.path.endsWith('?revision=31'))).toBe(true);
+    expect(await screen.findByRole('link', { name: 'Results workbook of revision 1' })).toHaveAttribute(
+      'href',
+      '/api/projects/7/revisions/31/results.xlsx',
+    );
+    // Flags are raised on the latest revision only: no bulk raise on an earlier one.
+    expect(screen.queryByRole('button', { name: /Raise flags for/ })).not.toBeInTheDocument();
+    // The members open as they were in that revision.
+    expect(within(table).getByRole('link', { name: 'L3-B12' })).toHaveAttribute('href', '/projects/7/members/L3-B12?revision=31');
+  });
+
+  it('offers checkers the bulk raise for the failing members of the filter, counted by the server', async () => {
+    const api = membersApi();
+    renderApp('/projects/7/members?level=102');
+    expect(await screen.findByRole('button', { name: /Raise flags for 4 failing members/ })).toBeInTheDocument();
+    const count = api.calls('GET /api/projects/7/members').find((r) => r.path.includes('pageSize=1'))!;
+    expect(new URLSearchParams(count.path.split('?')[1]).get('level')).toBe('102');
+    expect(new URLSearchParams(count.path.split('?')[1]).get('verdict')).toBe('fail');
+  });
+
+  it('shows viewers the list without the bulk raise', async () => {
+    const api = membersApi({}, 'viewer');
+    renderApp('/projects/7/members');
+    const table = await screen.findByRole('table', { name: 'Members' });
+    await within(table).findByText('L3-B12');
+    expect(screen.queryByRole('button', { name: /Raise flags for/ })).not.toBeInTheDocument();
+    expect(api.calls('GET /api/projects/7/members').some((r) => r.path.includes('pageSize=1'))).toBe(false);
   });
 });

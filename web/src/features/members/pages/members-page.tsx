@@ -9,6 +9,7 @@ import { RegionBoundary } from '@/components/region-boundary';
 import { BulkRaiseButton } from '@/features/flags/components/bulk-raise-button';
 import { useCurrentProject } from '@/lib/current-project';
 import { formatDateTime } from '@/lib/format';
+import { can } from '@/lib/roles';
 import { useMemberFacets } from '../api/get-member-facets';
 import { useMembers } from '../api/get-members';
 import { useRevisions } from '../api/get-revisions';
@@ -35,9 +36,12 @@ export function MembersPage() {
   const members = useMembers(project.id, view);
   const facets = useMemberFacets(project.id, view.revision);
   const revisions = useRevisions(project.id);
-  // How many of the filtered members fail: one counted row, for the bulk raise.
+  const latest = revisions.data?.[0];
+  const isLatest = !view.revision || (latest !== undefined && String(latest.id) === view.revision);
+  // How many of the filtered members fail: one counted row, for the bulk raise (checkers, latest revision).
+  const mayRaise = can.raiseFlags(project.myRole) && isLatest;
   const failingView = useMemo<MembersView>(() => ({ ...view, verdict: ['fail'], sort: 'mark', page: 1, pageSize: 1 }), [view]);
-  const failing = useMembers(project.id, failingView);
+  const failing = useMembers(project.id, mayRaise ? failingView : null);
 
   const onChange = useCallback(
     (next: MembersView) => setParams(membersSearchParams(next), { replace: false }),
@@ -46,8 +50,6 @@ export function MembersPage() {
 
   const page = members.data;
   const shownRevision = page?.revision ?? facets.data?.revision ?? null;
-  const latest = revisions.data?.[0];
-  const isLatest = !view.revision || (latest !== undefined && String(latest.id) === view.revision);
   const failingCount = failing.data?.total;
 
   return (
@@ -82,7 +84,7 @@ export function MembersPage() {
           </RegionBoundary>
           <Flex justify="space-between" align="center" wrap gap={8}>
             <Summary page={page} facetsTotal={facets.data?.total} facetsFail={facets.data?.verdicts.fail} filtered={hasFilters(view)} />
-            {isLatest && failingCount !== undefined && page?.revision && (
+            {mayRaise && failingCount !== undefined && page?.revision && (
               <BulkRaiseButton projectId={project.id} query={toMemberListQuery(view)} failingCount={failingCount} />
             )}
           </Flex>
