@@ -3,6 +3,8 @@ import { randomUUID } from 'node:crypto';
 import type { DigestRunReport, FlagDetail, MailboxMessage } from '@sagline/common/api-types';
 import { JobQueue } from '../src/jobs/job-queue';
 import { startFakeSmtp, type FakeSmtp } from '../src/mail/fake-smtp';
+import { digestMail } from '../src/mail/digest/digest-mail';
+import type { WaitingFlag } from '../src/mail/digest/digest.repository';
 import { DIGEST_QUEUE } from '../src/mail/digest/digest.tokens';
 import { utcDay } from '../src/mail/digest/digest.service';
 import { ApiClient } from './support/api-client';
@@ -30,7 +32,8 @@ const digests = (messages: MailboxMessage[]) => messages.filter((m) => /Sagline 
  * Two projects. Rafe (engineer on both) holds three open flags, one overdue
  * on the digest's day; Priya (checker) raised a flag that Ines answered, so
  * it waits on Priya to close; Ines has an open flag but turned her digest
- * off; the manager has nothing waiting; a closed flag waits on nobody.
+ * off; the manager is told of the overdue flags of the project she manages;
+ * the admin (on no project) has nothing waiting; a closed flag waits on nobody.
  */
 async function scenario(t: TestApp) {
   const make = new Factories(t.knex);
@@ -86,10 +89,10 @@ describe('the daily digest', () => {
   it('e-mails each person what waits on them across their projects, overdue first', async () => {
     const res = await s.c.admin.post('/api/digests/send', { date: DAY });
     expect(res.status).toBe(200);
-    expect(res.body as DigestRunReport).toEqual({ date: DAY, queued: 2, nothingWaiting: 2, off: 1, alreadySent: 0 });
+    expect(res.body as DigestRunReport).toEqual({ date: DAY, queued: 3, nothingWaiting: 1, off: 1, alreadySent: 0 });
 
     const mail = digests(await t.mailbox());
-    expect(mail.map((m) => m.to[0]).sort()).toEqual([s.checker.email, s.rafe.email].sort());
+    expect(mail.map((m) => m.to[0]).sort()).toEqual([s.checker.email, s.rafe.email, s.manager.email].sort());
 
     const rafe = mail.find((m) => m.to.includes(s.rafe.email))!;
     expect(rafe.subject).toBe(`3 flags wait on you (1 overdue): Sagline digest ${DAY}`);
@@ -120,17 +123,27 @@ describe('the daily digest', () => {
     expect(priya.subject).toBe(`1 flag waits on you (1 overdue): Sagline digest ${DAY}`);
     expect(priya.text).toContain(`- Halvercote Yard · B3: ${s.flags.answered.title} (due 2026-12-01, 9 days overdue; answered by Ines Okafor, waiting for you to close or reopen)`);
     expect(priya.text).not.toContain('B5');
+
+    // The manager: every overdue flag of Halvercote Yard (open or answered), none of the Annex she does not manage.
+    const mireille = mail.find((m) => m.to.includes(s.manager.email))!;
+    expect(mireille.subject).toBe(`3 overdue flags in projects you manage: Sagline digest ${DAY}`);
+    expect(mireille.text).toContain(`3 flags are overdue in projects you manage on Sagline today (${DAY}).`);
+    expect(mireille.text).toContain('Overdue in projects you manage (3)');
+    expect(mireille.text).toContain(`- Halvercote Yard · B3: ${s.flags.answered.title} (due 2026-12-01, 9 days overdue; with Ines Okafor, answered by Ines Okafor)`);
+    expect(mireille.text).toContain(`- Halvercote Yard · B5: ${s.flags.inesOpen.title} (due 2026-12-01, 9 days overdue; with Ines Okafor, not answered)`);
+    expect(mireille.text).toContain(`- Halvercote Yard · B1: ${s.flags.overdue.title} (due 2026-12-08, 2 days overdue; with Rafe Lindqvist, not answered)`);
+    expect(mireille.text).not.toMatch(/B2|B4|A1/);
   });
 
   it('sends nobody the same day twice, however often it runs', async () => {
     const again = await s.c.admin.post('/api/digests/send', { date: DAY });
-    expect(again.body).toEqual({ date: DAY, queued: 0, nothingWaiting: 2, off: 1, alreadySent: 2 });
+    expect(again.body).toEqual({ date: DAY, queued: 0, nothingWaiting: 1, off: 1, alreadySent: 3 });
     const both = await Promise.all([s.c.admin.post('/api/digests/send', { date: '2026-12-11' }), s.c.admin.post('/api/digests/send', { date: '2026-12-11' })]);
-    expect(both[0].body.queued + both[1].body.queued).toBe(2);
+    expect(both[0].body.queued + both[1].body.queued).toBe(3);
     const mail = digests(await t.mailbox());
-    expect(mail.filter((m) => m.subject.endsWith(DAY))).toHaveLength(2);
-    expect(mail.filter((m) => m.subject.endsWith('2026-12-11'))).toHaveLength(2);
-    expect(await t.knex('digest_log').count<{ count: string }[]>('* as count').first()).toEqual({ count: '4' });
+    expect(mail.filter((m) => m.subject.endsWith(DAY))).toHaveLength(3);
+    expect(mail.filter((m) => m.subject.endsWith('2026-12-11'))).toHaveLength(3);
+    expect(await t.knex('digest_log').count<{ count: string }[]>('* as count').first()).toEqual({ count: '6' });
   });
 
   it('sends a person who turns the digest back on their next one', async () => {
@@ -138,7 +151,7 @@ describe('the daily digest', () => {
     expect((await s.c.ines.patch('/api/me/preferences', { digest: true })).body).toEqual({ digest: true });
     expect((await s.c.ines.get('/api/me/preferences')).body).toEqual({ digest: true });
     const res = await s.c.admin.post('/api/digests/send', { date: '2026-12-12' });
-    expect(res.body).toMatchObject({ queued: 3, off: 0 });
+    expect(res.body).toMatchObject({ queued: 4, off: 0 });
     const ines = digests(await t.mailbox()).filter((m) => m.to.includes(s.ines.email));
     expect(ines).toHaveLength(1);
     expect(ines[0].text).toContain('B5');
@@ -169,13 +182,17 @@ describe('the daily digest', () => {
     await queue.send(DIGEST_QUEUE, {}, { id: randomUUID(), retryLimit: 2, expireInSeconds: 60 });
     const today = utcDay();
     let done = 0;
+    // Rafe, Priya and Ines have flags waiting whatever the day; the manager only once some are overdue.
     for (let i = 0; i < 150 && done < 3; i++) {
       done = Number((await t.knex('digest_log').where({ day: today }).count<{ count: string }[]>('* as count').first())!.count);
       if (done < 3) await new Promise((r) => setTimeout(r, 100));
     }
-    expect(done).toBe(3);
+    await new Promise((r) => setTimeout(r, 300));
     const mail = digests(await t.mailbox()).filter((m) => m.subject.endsWith(today));
-    expect(mail.map((m) => m.to[0]).sort()).toEqual([s.checker.email, s.ines.email, s.rafe.email].sort());
+    expect(mail.map((m) => m.to[0])).toEqual(expect.arrayContaining([s.checker.email, s.ines.email, s.rafe.email]));
+    expect(mail.map((m) => m.to[0]).sort()).toEqual(
+      (await t.knex('digest_log').join('users', 'users.id', 'digest_log.user_id').where({ day: today }).pluck('users.email')).sort(),
+    );
   });
 });
 
@@ -195,22 +212,36 @@ describe('the digest when SMTP is down', () => {
 
   it('keeps the digests queued, and delivers each exactly once when SMTP is back', async () => {
     const s = await scenario(t);
-    expect((await s.c.admin.post('/api/digests/send', { date: DAY })).body).toMatchObject({ queued: 2 });
+    expect((await s.c.admin.post('/api/digests/send', { date: DAY })).body).toMatchObject({ queued: 3 });
     await t.outbox.settle();
     const queued = await t.knex('outbound_mail').where('subject', 'like', '%Sagline digest%').orderBy('id');
     expect(queued.map((m) => [m.to, m.status, m.attempts])).toEqual(
-      expect.arrayContaining([[s.rafe.email, 'queued', 1], [s.checker.email, 'queued', 1]]),
+      expect.arrayContaining([[s.rafe.email, 'queued', 1], [s.checker.email, 'queued', 1], [s.manager.email, 'queued', 1]]),
     );
     // A second run while SMTP is down adds nothing.
-    expect((await s.c.admin.post('/api/digests/send', { date: DAY })).body).toMatchObject({ queued: 0, alreadySent: 2 });
+    expect((await s.c.admin.post('/api/digests/send', { date: DAY })).body).toMatchObject({ queued: 0, alreadySent: 3 });
 
     fake = await startFakeSmtp({ smtpPort, httpPort: 0 });
     const later = new Date(Date.now() + 4 * 3_600_000);
     const [a, b] = await Promise.all([t.outbox.flushOutbox(later), t.outbox.flushOutbox(later)]);
-    expect(a.sent + b.sent).toBeGreaterThanOrEqual(2);
+    expect(a.sent + b.sent).toBeGreaterThanOrEqual(3);
     await t.outbox.flushOutbox(later);
     const got = digests(fake.messages());
-    expect(got.map((m) => m.to[0]).sort()).toEqual([s.checker.email, s.rafe.email].sort());
-    expect(await t.knex('outbound_mail').where('subject', 'like', '%Sagline digest%').pluck('status')).toEqual(['sent', 'sent']);
+    expect(got.map((m) => m.to[0]).sort()).toEqual([s.checker.email, s.rafe.email, s.manager.email].sort());
+    expect(await t.knex('outbound_mail').where('subject', 'like', '%Sagline digest%').pluck('status')).toEqual(['sent', 'sent', 'sent']);
+  });
+});
+
+describe('the digest e-mail of a manager with many overdue flags', () => {
+  it('lists ten per project and links to the rest', () => {
+    const items: WaitingFlag[] = Array.from({ length: 13 }, (_, i) => ({
+      user_id: 1, why: 'managed', assignee_name: 'Rafe Lindqvist', flag_id: 100 + i, project_id: 7, project_name: 'Halvercote Yard',
+      mark: `B${i + 1}`, title: `B${i + 1} fails L/360 live`, due_date: '2026-12-01', overdue: true, answered_by: null,
+    }));
+    const mail = digestMail({ to: 'mireille@firm.example', name: 'Mireille Fontaine', day: DAY, publicUrl: TEST_PUBLIC_URL, items });
+    expect(mail.subject).toBe(`13 overdue flags in projects you manage: Sagline digest ${DAY}`);
+    expect(mail.text).toContain('Overdue in projects you manage (13)');
+    expect(mail.text.match(/^- Halvercote Yard · B\d+:/gm)).toHaveLength(10);
+    expect(mail.text).toContain(`- … 3 more overdue in Halvercote Yard: ${TEST_PUBLIC_URL}/projects/7/flags?overdue=true`);
   });
 });

@@ -147,7 +147,7 @@ export type ActivityPage = Page<ActivityEntry>;
 
 /** A person's e-mail preferences. */
 export interface Preferences {
-  /** The daily e-mail of what waits on you (flags assigned to you, answers to close). */
+  /** The daily e-mail of what waits on you (flags assigned to you, answers to close, overdue flags of projects you manage). */
   digest: boolean;
 }
 

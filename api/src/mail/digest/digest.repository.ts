@@ -13,8 +13,13 @@ export interface DigestPerson {
 /** One flag waiting on one person. */
 export interface WaitingFlag {
   user_id: number;
-  /** `assigned`: open and theirs to answer; `to_close`: they raised it, it is answered, theirs to close or reopen. */
-  why: 'assigned' | 'to_close';
+  /**
+   * `assigned`: open and theirs to answer; `to_close`: they raised it, it is
+   * answered, theirs to close or reopen; `managed`: overdue in a project they
+   * manage (theirs to chase).
+   */
+  why: 'assigned' | 'to_close' | 'managed';
+  assignee_name: string | null;
   flag_id: number;
   project_id: number;
   project_name: string;
@@ -37,7 +42,9 @@ export class DigestRepository {
   /**
    * What waits on each person on `day` (UTC), over the projects they are on:
    * open flags assigned to them, and, for checkers, answered flags they
-   * raised. Overdue (due before `day`) first, then by due date, project, mark.
+   * raised; for managers, every overdue flag (open or answered) of the
+   * projects they manage. Overdue (due before `day`) first, then by due
+   * date, project, mark.
    */
   waiting(day: string, userIds: number[]): Promise<WaitingFlag[]> {
     if (userIds.length === 0) return Promise.resolve([]);
@@ -48,12 +55,19 @@ export class DigestRepository {
       .where((w) =>
         w
           .where((a) => a.whereRaw('f.assignee_id = pr.user_id').where('f.status', 'open'))
-          .orWhere((c) => c.whereRaw('f.raised_by = pr.user_id').where('f.status', 'answered').where('pr.role', 'checker')),
+          .orWhere((c) => c.whereRaw('f.raised_by = pr.user_id').where('f.status', 'answered').where('pr.role', 'checker'))
+          .orWhere((m) => m.where('pr.role', 'manager').whereIn('f.status', ['open', 'answered']).whereRaw('f.due_date < ?::date', [day])),
       )
+      .leftJoin('users as au', 'au.id', 'f.assignee_id')
       .orderByRaw('pr.user_id, (f.due_date is not null and f.due_date < ?::date) desc, f.due_date nulls last, p.name, f.mark, f.id', [day])
       .select(
         'pr.user_id',
-        this.knex.raw(`case when f.assignee_id = pr.user_id and f.status = 'open' then 'assigned' else 'to_close' end as why`),
+        this.knex.raw(
+          `case when f.assignee_id = pr.user_id and f.status = 'open' then 'assigned'
+                when f.raised_by = pr.user_id and f.status = 'answered' and pr.role = 'checker' then 'to_close'
+                else 'managed' end as why`,
+        ),
+        'au.name as assignee_name',
         'f.id as flag_id',
         'f.project_id',
         'p.name as project_name',

@@ -30,7 +30,7 @@ export function DigestSwitch() {
           Daily digest
         </label>
         <Typography.Text id="digest-help" type="secondary" style={{ fontSize: 13 }}>
-          One e-mail a day listing what waits on you across your projects: open flags assigned to you and answers waiting for you to close, overdue first. Nothing is sent on a day when nothing waits. E-mails about a single flag (assigned, answered, closed, reopened) come either way.
+          One e-mail a day listing what waits on you across your projects: open flags assigned to you, answers waiting for you to close and, in projects you manage, overdue flags; overdue first. Nothing is sent on a day when nothing waits. E-mails about a single flag (assigned, answered, closed, reopened) come either way.
         </Typography.Text>
       </Flex>
     </Flex>
