@@ -122,3 +122,21 @@ test('a manager copies a preset, makes a ratio stricter, uses it and sees verdic
   await expect(page.getByText(new RegExp(`now follows "${originalName.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}"`))).toBeVisible();
   expect(await failing(page.locator('.ant-card').filter({ has: page.getByText(/^In use: /) }).first())).toBe(before);
 });
+
+test('a viewer reads the limit sets and their sources but gets no way to change them', async ({ page }) => {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill('dalia.stroud@halvercote.example');
+  await page.getByLabel('Password').fill(MANAGER.password);
+  await page.getByRole('button', { name: /sign in/i }).click();
+  await expect(page).toHaveURL(/\/projects/);
+  await page.getByText('Halvercote Yard').first().click();
+  await page.getByLabel('Project sections').getByText('Limit sets', { exact: true }).click();
+  await expect(page).toHaveURL(/\/limit-sets$/);
+  await expect(page.getByText(/^In use: /)).toBeVisible();
+  await expect(page.getByText(/Managers and admins copy, edit and choose limit sets/)).toBeVisible();
+  await expect(page.getByText('Table 1604.3, floor members, L column').first()).toBeVisible();
+  for (const name of ['Edit rules', 'Use this set', 'Copy into project', 'Copy']) {
+    await expect(page.getByRole('button', { name, exact: true })).toHaveCount(0);
+  }
+  await shot(page, '07-viewer');
+});
