@@ -4,6 +4,7 @@ import type { DigestRunReport, FlagDetail, MailboxMessage } from '@sagline/commo
 import { JobQueue } from '../src/jobs/job-queue';
 import { startFakeSmtp, type FakeSmtp } from '../src/mail/fake-smtp';
 import { digestMail } from '../src/mail/digest/digest-mail';
+import { parseDigestSettings } from '../src/mail/digest/digest-settings';
 import type { WaitingFlag } from '../src/mail/digest/digest.repository';
 import { DIGEST_QUEUE } from '../src/mail/digest/digest.tokens';
 import { utcDay } from '../src/mail/digest/digest.service';
@@ -243,5 +244,43 @@ describe('the digest e-mail of a manager with many overdue flags', () => {
     expect(mail.text).toContain('Overdue in projects you manage (13)');
     expect(mail.text.match(/^- Halvercote Yard · B\d+:/gm)).toHaveLength(10);
     expect(mail.text).toContain(`- … 3 more overdue in Halvercote Yard: ${TEST_PUBLIC_URL}/projects/7/flags?overdue=true`);
+  });
+});
+
+describe('DIGEST_CRON', () => {
+  it('takes a five-field cron in UTC or off, and says what is wrong with anything else', () => {
+    expect(parseDigestSettings({})).toEqual({ cron: '0 7 * * *' });
+    expect(parseDigestSettings({ DIGEST_CRON: ' 30  6 * * 1-5 ' })).toEqual({ cron: '30 6 * * 1-5' });
+    expect(parseDigestSettings({ DIGEST_CRON: 'OFF' })).toEqual({ cron: null });
+    expect(() => parseDigestSettings({ DIGEST_CRON: 'every morning' })).toThrow(/DIGEST_CRON "every morning" is not a five-field cron expression in UTC such as "0 7 \* \* \*"/);
+    expect(() => parseDigestSettings({ DIGEST_CRON: '0 7 * *' })).toThrow(/DIGEST_CRON/);
+  });
+
+  it('moves the schedule when it changes, and removes it when turned off', async () => {
+    const t = await TestApp.start();
+    const row = () => t.knex('pgboss.schedule').where({ name: DIGEST_QUEUE }).first().catch(() => undefined);
+    // The worker writes the schedule once pg-boss has started, a moment after the api is up.
+    const settled = async (done: (r: { cron: string } | undefined) => boolean) => {
+      for (let i = 0; i < 100; i++) {
+        const r = await row();
+        if (done(r)) return r;
+        await new Promise((res) => setTimeout(res, 100));
+      }
+      return row();
+    };
+    const before = process.env.DIGEST_CRON;
+    try {
+      expect(await settled((r) => r?.cron === '0 7 * * *')).toMatchObject({ cron: '0 7 * * *' });
+      process.env.DIGEST_CRON = '15 5 * * 1-5';
+      await t.restart();
+      expect(await settled((r) => r?.cron === '15 5 * * 1-5')).toMatchObject({ cron: '15 5 * * 1-5', options: { tz: 'UTC' } });
+      process.env.DIGEST_CRON = 'off';
+      await t.restart();
+      expect(await settled((r) => r === undefined)).toBeUndefined();
+    } finally {
+      if (before === undefined) delete process.env.DIGEST_CRON;
+      else process.env.DIGEST_CRON = before;
+      await t.close();
+    }
   });
 });

@@ -36,8 +36,8 @@ type Handler = (job: JobContext<unknown>) => Promise<void>;
 export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
   private readonly logger = new Logger('jobs');
   private readonly handlers = new Map<string, Handler>();
-  /** Queue name → cron expression (UTC) of jobs pg-boss sends on a timetable. */
-  private readonly schedules = new Map<string, string>();
+  /** Queue name → cron expression (UTC) of jobs pg-boss sends on a timetable; null: no longer scheduled. */
+  private readonly schedules = new Map<string, string | null>();
   private boss: PgBoss | null = null;
   private starting: Promise<PgBoss> | null = null;
   private closed = false;
@@ -55,9 +55,10 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
   /**
    * Sends a job to `name` on a timetable (cron, UTC), from whichever worker
    * process holds pg-boss's clock; the schedule lives in the database, so
-   * several processes send it once. Register the handler too.
+   * several processes send it once. Register the handler too. `null`
+   * removes a schedule an earlier start left in the database.
    */
-  schedule(name: string, cron: string): void {
+  schedule(name: string, cron: string | null): void {
     this.schedules.set(name, cron);
   }
 
@@ -82,7 +83,10 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
         for (const job of jobs) await handler({ id: job.id, data: job.data, retryCount: job.retryCount });
       });
     }
-    for (const [name, cron] of this.schedules) await boss.schedule(name, cron, {}, { tz: 'UTC' });
+    for (const [name, cron] of this.schedules) {
+      if (cron) await boss.schedule(name, cron, {}, { tz: 'UTC' });
+      else await boss.unschedule(name);
+    }
   }
 
   /** Queues a job; returns its id. */
@@ -114,7 +118,7 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
         supervise: this.settings.worker,
         maintenanceIntervalSeconds: this.settings.maintenanceSeconds,
         // The clock that sends scheduled jobs runs only in worker processes that have schedules.
-        schedule: this.settings.worker && this.schedules.size > 0,
+        schedule: this.settings.worker && [...this.schedules.values()].some((c) => c !== null),
       });
       boss.on('error', (e: Error) => this.logger.error(`job queue: ${e.message}`));
       try {

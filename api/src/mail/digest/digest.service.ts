@@ -41,7 +41,7 @@ export class DigestService implements OnModuleInit {
       const report = await this.run();
       this.logger.log(`digest of ${report.date}: ${report.queued} queued, ${report.nothingWaiting} with nothing waiting, ${report.off} off, ${report.alreadySent} done before`);
     });
-    if (this.settings.cron) this.queue.schedule(DIGEST_QUEUE, this.settings.cron);
+    this.queue.schedule(DIGEST_QUEUE, this.settings.cron);
   }
 
   /** Writes the digests of `day` (default today, UTC) and starts sending them. */
