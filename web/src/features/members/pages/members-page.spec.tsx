@@ -231,4 +231,14 @@ describe('Members: filters live in the URL', () => {
     expect(screen.queryByRole('button', { name: /Raise flags for/ })).not.toBeInTheDocument();
     expect(api.calls('GET /api/projects/7/members').some((r) => r.path.includes('pageSize=1'))).toBe(false);
   });
+
+  it('writes lengths and inertias in the project’s units (US customary here)', async () => {
+    membersApi({ 'GET /api/projects/7': { body: { ...halvercote('checker'), unitSystem: 'US' } } });
+    renderApp('/projects/7/members');
+    const table = await screen.findByRole('table', { name: 'Members' });
+    const row = (await within(table).findByText('L3-B12')).closest('tr') as HTMLElement;
+    // 7.2 m = 23.62 ft; I required 1.24 × 86.9 ×10⁶ mm⁴ = 107.8 ×10⁶ mm⁴ = 259 in⁴.
+    expect(within(row).getByText('23.6 ft')).toBeInTheDocument();
+    expect(within(row).getByText('259 in⁴')).toBeInTheDocument();
+  });
 });
