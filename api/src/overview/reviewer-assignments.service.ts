@@ -55,7 +55,7 @@ export class ReviewerAssignmentsService {
         action: reviewer ? 'reviewer.assigned' : 'reviewer.unassigned',
         summary: reviewer
           ? `${actor.name} assigned ${reviewer.name} to review ${level.name}`
-          : `${actor.name} removed the assigned reviewer of ${level.name} (the schedule's reviewers apply again)`,
+          : `${actor.name} removed the assigned reviewer of ${level.name} (members' own or the schedule's reviewers apply again)`,
         data: { levelId: level.id, levelName: level.name, userId: reviewer?.id ?? null, membersChanged: changed, revisionId: latest?.id ?? null },
       });
     });

@@ -27,6 +27,9 @@ export function LevelReviewerSelect({
     { value: 0, label: 'From the schedule' },
     ...(assignments?.candidates ?? []).map((c) => ({ value: c.id, label: c.name })),
   ];
+  // Someone assigned while a checker keeps the level after a role change: still shown by name.
+  const current = row.assignedReviewer;
+  if (current && !options.some((o) => o.value === current.id)) options.push({ value: current.id, label: `${current.name} (no longer a checker)` });
   const change = async (value: number) => {
     setBusy(true);
     try {
@@ -152,6 +155,11 @@ export function SignOffCell({ projectId, row, canSignOff, onChanged }: { project
       {s && live && (
         <Typography.Text type="secondary" style={{ fontSize: 12 }}>
           {s.signedBy?.name ?? 'Someone'}, revision {s.revisionNumber}
+        </Typography.Text>
+      )}
+      {s && live && needsAction > 0 && (
+        <Typography.Text type="warning" style={{ fontSize: 12, maxWidth: 320 }}>
+          {needsAction} flag{needsAction === 1 ? '' : 's'} on it need{needsAction === 1 ? 's' : ''} action since; withdraw the sign-off if it no longer holds.
         </Typography.Text>
       )}
     </Flex>
