@@ -332,7 +332,7 @@ export class LimitSetChangesService {
   /**
    * The latest revision's results under `row`: engine over every member
    * (the import's member-analysis), old results out, new ones in (the
-   * import's writer), members' verdicts and the revision's copy of the set
+   * import's COPY writer), members' verdicts and the revision's copy of the set
    * and counts updated. Null when the project has no revision.
    */
   private async recompute(trx: Trx, projectId: number, row: LimitSetRow, onProgress: Progress): Promise<RecomputeSummary | null> {
@@ -363,7 +363,7 @@ export class LimitSetChangesService {
     await this.repo.deleteResults(trx, latest.id);
     const resultRows = outcome.analyses.reduce((n, a) => n + a.results.length, 0);
     let written = 0;
-    await this.revisions.insertResults(trx, latest.id, memberIds, outcome.analyses, (rows) => {
+    await this.repo.writeResults(trx, latest.id, memberIds, outcome.analyses, (rows) => {
       written += rows;
       onProgress(0.5 + (0.4 * written) / Math.max(1, resultRows), 'Writing results');
     });

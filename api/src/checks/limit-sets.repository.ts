@@ -3,6 +3,8 @@ import type { Knex } from '@sagline/database';
 import type { LimitRule, LimitSet, LimitSetNote } from '@sagline/common/limits';
 import { KNEX } from '../db/db.tokens';
 import type { Trx } from '../db/transaction';
+import { writeResultRows } from '../imports/imports.repository';
+import type { MemberAnalysis } from './member-analysis';
 
 export interface LimitSetRow {
   id: number;
@@ -156,6 +158,11 @@ export class LimitSetsRepository {
   /** Drops a revision's results (through the members' index), before the recompute writes new ones. */
   async deleteResults(trx: Trx, revisionId: number): Promise<void> {
     await trx.raw('delete from results where member_id in (select id from members where revision_id = ?)', [revisionId]);
+  }
+
+  /** New results of stored members, with the import's writer (COPY, in this transaction). */
+  writeResults(trx: Trx, revisionId: number, memberIds: readonly number[], analyses: readonly MemberAnalysis[], onRows?: (rows: number) => void): Promise<void> {
+    return writeResultRows(trx, revisionId, memberIds, analyses, onRows);
   }
 
   /** The members' summary columns (the Members screen filters on them), in one statement. */

@@ -229,3 +229,30 @@ export class ImportsRepository {
     return this.knex('import_drafts').where('expires_at', '<=', this.knex.fn.now()).delete();
   }
 }
+
+/**
+ * Results of members already stored (`memberIds[k]` is the member of
+ * `analyses[k]`), with COPY in the caller's transaction: the same columns
+ * and values as writeMembers writes for an import. Used by a limit-set
+ * recompute (checks/limit-set-changes.service.ts), which replaces the
+ * results of the latest revision. `onRows(rows)` after each chunk.
+ */
+export async function writeResultRows(
+  trx: Trx,
+  revisionId: number,
+  memberIds: readonly number[],
+  analyses: readonly MemberToWrite['analysis'][],
+  onRows?: (rows: number) => void,
+): Promise<void> {
+  const results: { k: number; result: MemberToWrite['analysis']['results'][number] }[] = [];
+  analyses.forEach((a, k) => {
+    for (const result of a.results) results.push({ k, result });
+  });
+  await copyRows(trx, 'results', RESULT_COLUMNS, results.length, (i) => {
+    const { k, result: r } = results[i];
+    return [
+      memberIds[k], revisionId, r.checkName, r.combination, r.ruleId, r.segmentIndex, r.segmentKind, r.segmentFrom, r.segmentTo, r.x,
+      r.deflection, r.effectiveLength, r.spanRatio, r.limitRatio, r.maxAbs, r.plus, r.allowed, r.governing, r.utilization, r.pass, r.requiredI,
+    ];
+  }, onRows);
+}

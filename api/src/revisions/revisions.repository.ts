@@ -297,7 +297,7 @@ export class RevisionsRepository {
   /**
    * The engine's results of stored members (`memberIds[k]` is the member of
    * `analyses[k]`), column-wise like insertMembers; `step(rows)` after each
-   * statement. Used by the import above and by a limit-set recompute.
+   * statement.
    */
   async insertResults(trx: Trx, revisionId: number, memberIds: readonly number[], analyses: readonly MemberAnalysis[], step?: (rows: number) => void): Promise<void> {
     const resultRows: unknown[][] = [];
