@@ -1,8 +1,7 @@
 import { Injectable } from '@nestjs/common';
-import type { ProjectOverview } from '@sagline/common/api-types';
 
 /**
- * The last overview computed per project, kept with the fingerprint of the
+ * The last overview (or flags-over-time series) computed per project, kept with the fingerprint of the
  * data it was computed from (OverviewRepository.fingerprint). A request
  * reads the fingerprint (a few index reads, no member touched) and answers
  * from here only when it is unchanged, so every api process answers what
@@ -13,12 +12,12 @@ import type { ProjectOverview } from '@sagline/common/api-types';
  * Bounded: the projects used least recently are dropped first.
  */
 @Injectable()
-export class OverviewCache {
-  private readonly entries = new Map<number, { key: string; value: ProjectOverview }>();
+export class OverviewCache<T> {
+  private readonly entries = new Map<number, { key: string; value: T }>();
 
   constructor(private readonly capacity = 200) {}
 
-  get(projectId: number, key: string): ProjectOverview | undefined {
+  get(projectId: number, key: string): T | undefined {
     const hit = this.entries.get(projectId);
     if (!hit || hit.key !== key) return undefined;
     // Re-insert: Map order is the recency order.
@@ -27,7 +26,7 @@ export class OverviewCache {
     return hit.value;
   }
 
-  set(projectId: number, key: string, value: ProjectOverview): void {
+  set(projectId: number, key: string, value: T): void {
     this.entries.delete(projectId);
     this.entries.set(projectId, { key, value });
     while (this.entries.size > this.capacity) this.entries.delete(this.entries.keys().next().value!);

@@ -15,8 +15,11 @@ export class OverviewService {
     private readonly repo: OverviewRepository,
     private readonly assignments: ReviewerAssignmentsRepository,
     private readonly signOffs: SignOffsRepository,
-    private readonly cache: OverviewCache,
+    private readonly cache: OverviewCache<ProjectOverview>,
   ) {}
+
+  /** One window length per project is kept (the screen shows one at a time). */
+  private readonly series = new OverviewCache<FlagsOverTime>();
 
   /** Answered from the cache while nothing it counts has changed (overview-cache.ts). */
   async overview(access: ProjectAccess): Promise<ProjectOverview> {
@@ -85,9 +88,15 @@ export class OverviewService {
     };
   }
 
+  /** Cached like the overview, per window length. */
   async flagsOverTime(access: ProjectAccess, days: number): Promise<FlagsOverTime> {
+    const key = `${days}|${await this.repo.fingerprint(access.projectId)}`;
+    const cached = this.series.get(access.projectId, key);
+    if (cached) return cached;
     const points = await this.repo.flagsOverTime(access.projectId, days);
-    return { from: points[0]?.day ?? '', to: points[points.length - 1]?.day ?? '', points };
+    const fresh = { from: points[0]?.day ?? '', to: points[points.length - 1]?.day ?? '', points };
+    this.series.set(access.projectId, key, fresh);
+    return fresh;
   }
 }
 
