@@ -66,7 +66,7 @@ class Session {
     const headers: Record<string, string> = { cookie: this.cookieHeader };
     const csrf = this.cookies.get(CSRF_COOKIE);
     if (method !== 'GET' && csrf) headers[CSRF_HEADER] = csrf;
-    let payload: BodyInit | undefined;
+    let payload: FormData | string | undefined;
     if (body instanceof FormData) payload = body;
     else if (body !== undefined) {
       headers['content-type'] = 'application/json';
