@@ -274,7 +274,7 @@ describe('limit sets: presets, copies, edits and the recompute', () => {
     const active = (await overview()).projectSets.find((s) => s.active)!;
     const res = await manager.post(base, { fromSetId: active.id });
     expect(res.status).toBe(201);
-    expect(res.body).toMatchObject({ name: `${active.name} (project copy)`, active: false, version: 1 });
+    expect(res.body).toMatchObject({ name: `${active.name} (copy)`, active: false, version: 1 });
     expect(res.body.rules).toEqual(active.rules);
   });
 });

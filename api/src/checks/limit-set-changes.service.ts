@@ -121,6 +121,7 @@ export class LimitSetChangesService {
     let source: Omit<LimitSet, 'id'>;
     let presetId: string | null;
     let from: string;
+    let suffix = '(project copy)';
     if (req.fromPreset !== undefined) {
       const preset = findPreset(req.fromPreset);
       if (!preset) {
@@ -139,8 +140,9 @@ export class LimitSetChangesService {
       source = toLimitSet(own);
       presetId = own.source_preset_id;
       from = `"${own.name}"`;
+      suffix = '(copy)';
     }
-    const name = req.name?.trim() || `${source.name} (project copy)`;
+    const name = req.name?.trim() || `${source.name} ${suffix}`;
     const actor = await this.actorName(actorId);
     const id = await this.tx.run(async (trx) => {
       const setId = await this.repo.insertOwn(trx, projectId, { ...source, name }, presetId);
