@@ -135,7 +135,7 @@ export function OverviewReportPage() {
         </tbody>
       </table>
 
-      <h2>Flags over the last 90 days</h2>
+      <h2>Flags over time (up to 90 days, from the first flag)</h2>
       {series.data ? <FlagsChart points={series.data.points} compact /> : series.error ? <LoadError error={series.error} what="the chart" /> : <p className="muted">Drawing the chart…</p>}
 
       <p className="caution">
