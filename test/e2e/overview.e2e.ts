@@ -204,6 +204,9 @@ test('manager reads the overview and assigns a reviewer; a flag is raised, maile
   await expect(report.getByRole('img', { name: /^Flags over time\./ })).toBeVisible();
   await shot(manager, '06-report');
   await manager.emulateMedia({ media: 'print' });
+  // As printed: no buttons, white page.
+  await expect(report.getByRole('button', { name: /Print or save as PDF/ })).toBeHidden();
+  await shot(manager, '07-report-as-printed');
   await manager.pdf({ path: path.join(ARTIFACTS, 'overview-report.pdf'), landscape: true, format: 'A4', printBackground: true });
   await manager.context().close();
 });
