@@ -7,7 +7,7 @@ import { palette } from '@/app/theme';
 import { levelLinks, levelName, percentText, reviewerLinks, reviewerName } from './overview-labels';
 
 type CountKey = 'members' | 'pass' | 'fail' | 'flagsOpen' | 'flagsAnswered' | 'flagsClosed' | 'flagsWaived' | 'overdue';
-type LinkKey = 'members' | 'pass' | 'fail' | 'open' | 'answered' | 'closed' | 'waived' | 'overdue';
+type LinkKey = 'members' | 'pass' | 'fail' | 'open' | 'answered' | 'closed' | 'waived' | 'overdue' | 'total';
 
 const COUNT_COLUMNS: { key: CountKey; title: string; link: LinkKey; hint: string; tone?: string }[] = [
   { key: 'members', title: 'Members', link: 'members', hint: 'Members in the latest revision' },
@@ -41,7 +41,7 @@ function countColumns<R extends OverviewCounts>(name: (r: R) => string, links: (
     key: 'flagsTotal',
     title: <Tooltip title="Every flag, whatever its status">Flags</Tooltip>,
     align: 'right',
-    render: (_: unknown, r: R) => <span style={{ fontVariantNumeric: 'tabular-nums' }}>{r.flagsTotal}</span>,
+    render: (_: unknown, r: R) => countCell(r.flagsTotal, links(r)?.total, `Flags: ${r.flagsTotal} (${name(r)})`),
   });
   cols.splice(cols.length - 1, 0, {
     key: 'percentClosed',

@@ -73,6 +73,7 @@ describe('Overview', () => {
     expect(within(l1).getByRole('link', { name: 'Failing: 2 (L1)' })).toHaveAttribute('href', '/projects/7/members?level=100&verdict=fail');
     expect(within(l1).getByRole('link', { name: 'Open: 1 (L1)' })).toHaveAttribute('href', '/projects/7/flags?status=open&level=100');
     expect(within(l1).getByRole('link', { name: 'Overdue: 1 (L1)' })).toHaveAttribute('href', '/projects/7/flags?overdue=true&level=100');
+    expect(within(l1).getByRole('link', { name: 'Flags: 3 (L1)' })).toHaveAttribute('href', '/projects/7/flags?level=100');
     expect(within(l1).getByText('33.3 %')).toBeInTheDocument();
     // A voided sign-off says why.
     const l2 = within(levels).getByRole('row', { name: /^L2/ });
