@@ -148,6 +148,24 @@ describe('the overview: counts per level and per reviewer, flags over time, revi
     expect(o.totals.flagsTotal).toBe(5);
   });
 
+  it('counts again after a limit-set recompute rewrites verdicts in place (same revision)', async () => {
+    const first = await overview();
+    // What the recompute does (api/src/checks): members' verdicts and the revision's counts, in one transaction.
+    const latest = await t.knex('revisions').where({ project_id: project.id }).orderBy('number', 'desc').first('id');
+    await t.knex.transaction(async (trx) => {
+      await trx('members').where({ revision_id: latest.id, mark: 'B4' }).update({ verdict: 'fail' });
+      await trx('revisions').where({ id: latest.id }).update({ fail_count: trx.raw('fail_count + 1'), pass_count: trx.raw('pass_count - 1') });
+    });
+    const second = await overview();
+    expect(second.totals.fail).toBe(first.totals.fail + 1);
+    expect(second.levels[0].fail).toBe(first.levels[0].fail + 1);
+    await t.knex.transaction(async (trx) => {
+      await trx('members').where({ revision_id: latest.id, mark: 'B4' }).update({ verdict: 'pass' });
+      await trx('revisions').where({ id: latest.id }).update({ fail_count: trx.raw('fail_count - 1'), pass_count: trx.raw('pass_count + 1') });
+    });
+    expect((await overview()).totals.fail).toBe(first.totals.fail);
+  });
+
   it('draws flags over time from the status history, day by day (UTC)', async () => {
     const other = await new Factories(t.knex).project({ team: [[priya, 'checker'], [engineer, 'engineer']] });
     await members.revision(other.id, engineer.id, ['D1', 'D2', 'D3', 'D4', 'D5'].map((mark) => ({ mark, I: 20 })));
