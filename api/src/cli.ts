@@ -3,7 +3,8 @@
  *   node api/dist/cli.js seed-demo   import samples/halvercote-yard.xlsx as revision 1 of the
  *                                    demo project, when it has no revision yet (after the
  *                                    database seed: node database/dist/src/cli.js seed), then
- *                                    raise demo flags at every stage when it has none yet
+ *                                    raise demo flags at every stage when it has none yet; both
+ *                                    dated over the last four weeks (flags/demo-history.ts)
  *   node api/dist/cli.js send-digest [YYYY-MM-DD]
  *                                    write and send the daily digest of that day (default today,
  *                                    UTC) now; people already sent that day's digest get none

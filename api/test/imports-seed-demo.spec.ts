@@ -45,8 +45,8 @@ describe('cli seed-demo', () => {
     expect(first.status).toBe(0);
     expect(first.stderr).toMatch(
       new RegExp(
-        '^\\[api\\] seed-demo: imported halvercote-yard\\.xlsx into Halvercote Yard as revision 1 \\(uploaded by Kasimir Oduya\\): 391 members, \\d+ failing\n' +
-          `\\[api\\] seed-demo: raised 6 demo flags on revision 1 of project ${DEMO_PROJECT.number} \\(open, overdue, answered, closed, waived, unassigned\\)\n$`,
+        '^\\[api\\] seed-demo: imported halvercote-yard\\.xlsx into Halvercote Yard as revision 1 \\(uploaded by Kasimir Oduya, dated 25 days ago\\): 391 members, \\d+ failing\n' +
+          `\\[api\\] seed-demo: raised 6 demo flags on revision 1 of project ${DEMO_PROJECT.number} \\(open, overdue, answered, closed, waived, unassigned\\), their history dated from 23 to 2 days ago\n$`,
       ),
     );
 
@@ -67,6 +67,29 @@ describe('cli seed-demo', () => {
       { status: 'waived', n: '1' },
     ]);
     expect(await knex('flags').whereNotNull('due_date').where('due_date', '<', knex.raw('current_date')).whereIn('status', ['open', 'answered']).count('* as n').first()).toEqual({ n: '1' });
+
+    // The story (demo-history.ts): project, then revision 1, then the flags' steps on different days, none today.
+    const daysAgo = async (sql: string) => Number((await knex.raw(`select ((now() at time zone 'utc')::date - (${sql})::date) as d`)).rows[0].d);
+    expect(await daysAgo(`select created_at at time zone 'utc' from revisions`)).toBe(25);
+    expect(await daysAgo(`select created_at at time zone 'utc' from activity where action = 'project.created'`)).toBe(27);
+    expect(await daysAgo(`select created_at at time zone 'utc' from activity where action = 'import.committed'`)).toBe(25);
+    const stepDays = await knex('flag_events').where({ kind: 'status' }).countDistinct({ n: knex.raw(`(created_at at time zone 'utc')::date`) }).first();
+    expect(Number(stepDays?.n)).toBe(10);
+    const events = await knex('flag_events').orderBy(['flag_id', 'id']).select('flag_id', 'created_at');
+    for (let i = 1; i < events.length; i++) if (events[i].flag_id === events[i - 1].flag_id) expect(events[i].created_at.getTime()).toBeGreaterThan(events[i - 1].created_at.getTime());
+    // A flag's dates are those of its history; each activity entry of a flag is dated with its step.
+    const off = await knex.raw(
+      `select count(*)::int as n from flags f
+        where f.created_at <> (select min(e.created_at) from flag_events e where e.flag_id = f.id)
+           or f.updated_at <> (select max(e.created_at) from flag_events e where e.flag_id = f.id)`,
+    );
+    expect(off.rows[0].n).toBe(0);
+    const unmatched = await knex.raw(
+      `select count(*)::int as n from activity a
+        where a.action like 'flag.%' and not exists (select 1 from flag_events e where e.flag_id = (a.data->>'flagId')::int and e.created_at = a.created_at)`,
+    );
+    expect(unmatched.rows[0].n).toBe(0);
+    expect(await knex('activity').where('created_at', '>', knex.raw(`now() - interval '1 day'`)).count('* as n').first()).toEqual({ n: '0' });
 
     const again = seedDemoCli(db.url);
     expect(again).toEqual({
