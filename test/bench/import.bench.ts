@@ -33,10 +33,30 @@ const LEVELS = ['L1', 'L2', 'L3', 'L4', 'L5'];
 interface Measure {
   ms: number;
   rssMb: number;
+  /** CPU time of this process over the measured span (user + system). */
+  cpuMs: number;
+  /** CPU time of the PostgreSQL backends serving it over the same span (import only). */
+  dbCpuMs?: number;
   previewMs?: number;
   commitMs?: number;
   stored?: { members: number; loads: number; results: number; failing: number };
 }
+
+/** CPU seconds (user + system) a process has used so far, from /proc (Linux, 100 ticks a second); 0 when unknown. */
+function procCpuSeconds(pid: number): number {
+  try {
+    const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    return (Number(fields[11]) + Number(fields[12])) / 100;
+  } catch {
+    return 0;
+  }
+}
+
+const cpuMsSince = (start: NodeJS.CpuUsage) => {
+  const d = process.cpuUsage(start);
+  return (d.user + d.system) / 1000;
+};
 
 /** The api's sources need decorator metadata, which tsx (esbuild) does not emit: load them through swc, as jest does. */
 function apiSources(): void {
@@ -47,12 +67,14 @@ function apiSources(): void {
 async function measureRead(file: string): Promise<Measure> {
   const ExcelJS = require('exceljs') as typeof import('exceljs');
   const bytes = fs.readFileSync(file);
+  const cpu0 = process.cpuUsage();
   const t0 = performance.now();
   const wb = new ExcelJS.Workbook();
   await wb.xlsx.load(bytes as unknown as ArrayBuffer);
   const ms = performance.now() - t0;
+  const cpuMs = cpuMsSince(cpu0);
   if (!wb.getWorksheet('Members')) throw new Error('no Members sheet');
-  return { ms, rssMb: peakMb() };
+  return { ms, cpuMs, rssMb: peakMb() };
 }
 
 // ------------------------------------------------------------------ child: (b)
@@ -78,19 +100,29 @@ async function measureImport(file: string, url: string, projectId: number, userI
     // A project's limit-set copy is made once, on its first use, not per import: not timed.
     await app.get(LimitSetsService).forProject(projectId);
     const bytes = fs.readFileSync(file);
+    const knex = app.get<import('knex').Knex>(KNEX);
+    // The backends of this database (the pool's, local server): their CPU over the span is PostgreSQL's share.
+    const backends = async (): Promise<Map<number, number>> => {
+      const { rows } = await knex.raw<{ rows: { pid: number }[] }>('select pid from pg_stat_activity where datname = current_database()');
+      return new Map(rows.map((r) => [r.pid, procCpuSeconds(r.pid)]));
+    };
+    const db0 = await backends();
+    const cpu0 = process.cpuUsage();
     const t0 = performance.now();
     const preview = await app.get(ImportsService).preview(projectId, userId, { fileName: path.basename(file), bytes });
     const t1 = performance.now();
     const { revision } = await app.get(ImportCommitService).commit(projectId, preview.draftId, { label: 'bench', actorId: userId });
     const t2 = performance.now();
-    const knex = app.get<import('knex').Knex>(KNEX);
+    const cpuMs = cpuMsSince(cpu0);
+    let dbCpuMs = 0;
+    for (const [pid, after] of await backends()) dbCpuMs += (after - (db0.get(pid) ?? 0)) * 1000;
     const { rows } = await knex.raw(
       `select (select count(*) from members where revision_id = ?)::int as members,
               (select count(*) from member_loads l join members m on m.id = l.member_id where m.revision_id = ?)::int as loads,
               (select count(*) from results where revision_id = ?)::int as results`,
       [revision.id, revision.id, revision.id],
     );
-    return { ms: t2 - t0, previewMs: t1 - t0, commitMs: t2 - t1, rssMb: peakMb(), stored: { ...rows[0], failing: revision.failCount } };
+    return { ms: t2 - t0, previewMs: t1 - t0, commitMs: t2 - t1, cpuMs, dbCpuMs, rssMb: peakMb(), stored: { ...rows[0], failing: revision.failCount } };
   } finally {
     await app.close();
   }
@@ -164,6 +196,11 @@ async function main(): Promise<void> {
     say(`    stored: ${b.stored!.members} members (${b.stored!.failing} failing), ${b.stored!.loads} loads, ${b.stored!.results} results`);
     const ratio = b.ms / a.ms;
     say(`ratio (b) / (a):         ${ratio.toFixed(2)}×   (target ≤ 2×: ${ratio <= 2 ? 'met' : 'NOT met'}; pair by pair ${imports.map((r, i) => `${(r.ms / reads[i].ms).toFixed(2)}×`).join(', ')})`);
+    const aCpu = Math.min(...reads.map((r) => r.cpuMs));
+    const bCpu = Math.min(...imports.map((r) => r.cpuMs + r.dbCpuMs!));
+    const bBest = imports.reduce((x, y) => (y.cpuMs + y.dbCpuMs! < x.cpuMs + x.dbCpuMs! ? y : x));
+    say(`CPU time:                (a) ${s(aCpu)}; (b) ${s(bBest.cpuMs)} node + ${s(bBest.dbCpuMs!)} PostgreSQL = ${s(bCpu)}: ${(bCpu / aCpu).toFixed(2)}× (least of the runs;`);
+    say(`                         what the work costs whatever the load; on idle cores (b) can take less than its sum)`);
     say(`machine:                 ${os.cpus().length} cores, load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')}`);
     const rss = Math.max(...imports.map((r) => r.rssMb));
     say(`peak RSS of the import:  ${rss} MB   (target < 500 MB: ${rss < 500 ? 'met' : 'NOT met'})`);
