@@ -43,6 +43,9 @@ export function MembersPage() {
   const failingView = useMemo<MembersView>(() => ({ ...view, verdict: ['fail'], sort: 'mark', page: 1, pageSize: 1 }), [view]);
   const failing = useMembers(project.id, mayRaise ? failingView : null);
 
+  // Stable between renders, so the (memoised) table redraws only when its rows or view change.
+  const linkState = useMemo(() => ({ from: location.pathname + location.search }), [location.pathname, location.search]);
+
   const onChange = useCallback(
     (next: MembersView) => setParams(membersSearchParams(next), { replace: false }),
     [setParams],
@@ -102,11 +105,11 @@ export function MembersPage() {
             <MembersTable
               projectId={project.id}
               page={page}
-              loading={members.isLoading || members.isValidating}
+              loading={members.isLoading}
               view={view}
               columns={columns}
               unitSystem={project.unitSystem}
-              linkState={{ from: location.pathname + location.search }}
+              linkState={linkState}
               onChange={onChange}
             />
           )}
