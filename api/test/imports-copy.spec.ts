@@ -1,6 +1,7 @@
 import { gunzipSync } from 'node:zlib';
 import type { ImportPreview } from '@sagline/common/api-types';
 import type { ScheduleMember } from '@sagline/common/schedule';
+import { copyRows } from '../src/db/copy-rows';
 import { ApiClient } from './support/api-client';
 import { Factories, PASSWORD, type TestProject, type TestUser } from './support/factories';
 import { TestApp } from './support/test-app';
@@ -64,6 +65,26 @@ describe('imports: what the commit writes comes back as it was typed', () => {
     const loads = await t.knex('member_loads as l').join('members as m', 'm.id', 'l.member_id').where('m.revision_id', revisionId).select('l.kind', 'l.case', 'l.x1', 'l.x2', 'l.value1', 'l.value2', 'l.source_sheet', 'l.source_column');
     expect(loads).toContainEqual({ kind: 'point', case: 'L', x1: 1.25, x2: null, value1: 3300, value2: null, source_sheet: 'Loads', source_column: null });
     expect(loads.filter((l) => l.kind === 'udl')).toHaveLength(members.length * 2);
+  });
+
+  it('a row PostgreSQL refuses in the middle of a COPY fails the whole transaction, and the connection goes on working', async () => {
+    await t.knex.raw('create table copy_probe (n int not null, label text)');
+    try {
+      const rows: [number | string, string | null][] = Array.from({ length: 5000 }, (_, i) => [i, `row ${i}`]);
+      rows[3500] = ['not a number', 'bad'];
+      await expect(
+        t.knex.transaction(async (trx) => {
+          await trx('copy_probe').insert({ n: -1, label: 'before the copy' });
+          await copyRows(trx, 'copy_probe', ['n', 'label'], rows.length, (i) => rows[i]);
+        }),
+      ).rejects.toThrow(/invalid input syntax for type integer/);
+      expect(Number((await t.knex('copy_probe').count<{ n: string }[]>('* as n').first())!.n)).toBe(0);
+      // The pool's connections still work, in a transaction too.
+      await t.knex.transaction((trx) => copyRows(trx, 'copy_probe', ['n', 'label'], 3, (i) => [i, i === 1 ? null : `ok ${i}`]));
+      expect(await t.knex('copy_probe').orderBy('n').select('n', 'label')).toEqual([{ n: 0, label: 'ok 0' }, { n: 1, label: null }, { n: 2, label: 'ok 2' }]);
+    } finally {
+      await t.knex.raw('drop table copy_probe');
+    }
   });
 
   it('stores the same doubles, verdicts and results the preview computed (the member detail recomputes them)', async () => {
