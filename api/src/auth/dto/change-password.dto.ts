@@ -1,5 +1,6 @@
-import { IsNotEmpty, IsString, MaxLength, MinLength } from 'class-validator';
+import { IsNotEmpty, IsString, MaxLength } from 'class-validator';
 import { LIMITS, type ChangePasswordRequest } from '@sagline/common/api-types';
+import { IsNewPassword } from './new-password';
 
 export class ChangePasswordDto implements ChangePasswordRequest {
   @IsString({ message: 'must be text' })
@@ -7,8 +8,6 @@ export class ChangePasswordDto implements ChangePasswordRequest {
   @MaxLength(LIMITS.passwordMax, { message: `must be at most ${LIMITS.passwordMax} characters` })
   currentPassword: string;
 
-  @IsString({ message: 'must be text' })
-  @MinLength(LIMITS.passwordMin, { message: `must be at least ${LIMITS.passwordMin} characters` })
-  @MaxLength(LIMITS.passwordMax, { message: `must be at most ${LIMITS.passwordMax} characters` })
+  @IsNewPassword()
   newPassword: string;
 }

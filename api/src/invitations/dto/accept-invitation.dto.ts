@@ -1,5 +1,6 @@
-import { IsNotEmpty, IsString, MaxLength, MinLength } from 'class-validator';
+import { IsNotEmpty, IsString, MaxLength } from 'class-validator';
 import { LIMITS, type AcceptInvitationRequest } from '@sagline/common/api-types';
+import { IsNewPassword } from '../../auth/dto/new-password';
 import { Trim } from '../../common/dto-helpers';
 
 export class AcceptInvitationDto implements AcceptInvitationRequest {
@@ -9,8 +10,6 @@ export class AcceptInvitationDto implements AcceptInvitationRequest {
   @MaxLength(LIMITS.nameMax, { message: `must be at most ${LIMITS.nameMax} characters` })
   name: string;
 
-  @IsString({ message: 'must be text' })
-  @MinLength(LIMITS.passwordMin, { message: `must be at least ${LIMITS.passwordMin} characters` })
-  @MaxLength(LIMITS.passwordMax, { message: `must be at most ${LIMITS.passwordMax} characters` })
+  @IsNewPassword()
   password: string;
 }

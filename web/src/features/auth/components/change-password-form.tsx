@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import { Alert, Button, Form, Input } from 'antd';
-import { LIMITS } from '@sagline/common/api-types';
+import { Form } from 'antd';
 import { errorMessage } from '@/app/api-error';
+import { FormFooter } from '@/components/form-footer';
+import { CurrentPasswordField, NewPasswordFields } from '@/components/password-fields';
 import { showFieldErrors } from '@/lib/form-errors';
-import { newPasswordRules, confirmPasswordRules } from '@/lib/password-rules';
 import { useChangePassword } from '../api/change-password';
 
 interface Values {
@@ -32,36 +32,14 @@ export function ChangePasswordForm() {
 
   return (
     <Form form={form} layout="vertical" requiredMark={false} onFinish={submit} disabled={isMutating} style={{ maxWidth: 420 }}>
-      <Form.Item
-        label="Current password"
-        name="currentPassword"
-        rules={[
-          { required: true, message: 'Enter your current password.' },
-          { max: LIMITS.passwordMax, message: `A password has at most ${LIMITS.passwordMax} characters.` },
-        ]}
-      >
-        <Input.Password autoComplete="current-password" />
-      </Form.Item>
-      <Form.Item label="New password" name="newPassword" rules={newPasswordRules} extra={`At least ${LIMITS.passwordMin} characters.`}>
-        <Input.Password autoComplete="new-password" />
-      </Form.Item>
-      <Form.Item label="Confirm new password" name="confirm" dependencies={['newPassword']} rules={confirmPasswordRules('newPassword')}>
-        <Input.Password autoComplete="new-password" />
-      </Form.Item>
-      {outcome && (
-        <Form.Item>
-          {outcome.ok ? (
-            <Alert type="success" showIcon title="Password changed. Use the new one next time you sign in." />
-          ) : (
-            <Alert type="error" showIcon title={outcome.message} />
-          )}
-        </Form.Item>
-      )}
-      <Form.Item style={{ marginBottom: 0 }}>
-        <Button type="primary" htmlType="submit" loading={isMutating}>
-          Change password
-        </Button>
-      </Form.Item>
+      <CurrentPasswordField name="currentPassword" label="Current password" requiredMessage="Enter your current password." />
+      <NewPasswordFields name="newPassword" label="New password" confirmLabel="Confirm new password" />
+      <FormFooter
+        problem={outcome && !outcome.ok ? outcome.message : null}
+        done={outcome?.ok ? 'Password changed. Use the new one next time you sign in.' : null}
+        submitLabel="Change password"
+        loading={isMutating}
+      />
     </Form>
   );
 }

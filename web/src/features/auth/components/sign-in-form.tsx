@@ -1,7 +1,9 @@
 import { useState } from 'react';
-import { Alert, Button, Form, Input } from 'antd';
+import { Form, Input } from 'antd';
 import { LIMITS, type SignInRequest } from '@sagline/common/api-types';
 import { errorMessage, isApiError } from '@/app/api-error';
+import { FormFooter } from '@/components/form-footer';
+import { CurrentPasswordField } from '@/components/password-fields';
 import { minutesText } from '@/lib/format';
 import { useSignIn } from '../api/sign-in';
 
@@ -53,26 +55,8 @@ export function SignInForm({ initialEmail, onSignedIn }: { initialEmail?: string
       >
         <Input autoComplete="username" autoFocus={!initialEmail} inputMode="email" />
       </Form.Item>
-      <Form.Item
-        label="Password"
-        name="password"
-        rules={[
-          { required: true, message: 'Enter your password.' },
-          { max: LIMITS.passwordMax, message: `A password has at most ${LIMITS.passwordMax} characters.` },
-        ]}
-      >
-        <Input.Password autoComplete="current-password" autoFocus={!!initialEmail} />
-      </Form.Item>
-      {problem && (
-        <Form.Item>
-          <Alert type="error" showIcon title={problem} />
-        </Form.Item>
-      )}
-      <Form.Item style={{ marginBottom: 0 }}>
-        <Button type="primary" htmlType="submit" block loading={isMutating}>
-          Sign in
-        </Button>
-      </Form.Item>
+      <CurrentPasswordField name="password" label="Password" requiredMessage="Enter your password." autoFocus={!!initialEmail} />
+      <FormFooter problem={problem} submitLabel="Sign in" loading={isMutating} block />
     </Form>
   );
 }

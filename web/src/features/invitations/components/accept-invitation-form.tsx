@@ -1,9 +1,10 @@
 import { useState } from 'react';
-import { Alert, Button, Form, Input } from 'antd';
+import { Form, Input } from 'antd';
 import { LIMITS, type InvitationResponse } from '@sagline/common/api-types';
 import { errorMessage, isApiError } from '@/app/api-error';
+import { FormFooter } from '@/components/form-footer';
+import { NewPasswordFields } from '@/components/password-fields';
 import { showFieldErrors } from '@/lib/form-errors';
-import { confirmPasswordRules, newPasswordRules } from '@/lib/password-rules';
 import { useAcceptInvitation } from '../api/accept-invitation';
 
 interface Values {
@@ -61,22 +62,8 @@ export function AcceptInvitationForm({
       >
         <Input autoComplete="name" />
       </Form.Item>
-      <Form.Item label="Password" name="password" rules={newPasswordRules} extra={`At least ${LIMITS.passwordMin} characters.`}>
-        <Input.Password autoComplete="new-password" />
-      </Form.Item>
-      <Form.Item label="Confirm password" name="confirm" dependencies={['password']} rules={confirmPasswordRules('password')}>
-        <Input.Password autoComplete="new-password" />
-      </Form.Item>
-      {problem && (
-        <Form.Item>
-          <Alert type="error" showIcon title={problem} />
-        </Form.Item>
-      )}
-      <Form.Item style={{ marginBottom: 0 }}>
-        <Button type="primary" htmlType="submit" block loading={isMutating}>
-          Set password
-        </Button>
-      </Form.Item>
+      <NewPasswordFields name="password" label="Password" confirmLabel="Confirm password" />
+      <FormFooter problem={problem} submitLabel="Set password" loading={isMutating} block />
     </Form>
   );
 }
