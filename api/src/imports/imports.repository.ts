@@ -168,12 +168,8 @@ export class ImportsRepository {
     if (list.length === 0) return;
     const ids: number[] = (await trx.raw(`select nextval('members_id_seq')::int as id from generate_series(1, ?)`, [list.length])).rows.map((r: { id: number }) => r.id);
     const loads: { k: number; position: number; load: ScheduleMember['loads'][number] }[] = [];
-    const results: { k: number; result: MemberToWrite['analysis']['results'][number] }[] = [];
-    list.forEach((w, k) => {
-      w.member.loads.forEach((load, position) => loads.push({ k, position, load }));
-      for (const result of w.analysis.results) results.push({ k, result });
-    });
-    const total = list.length + loads.length + results.length;
+    list.forEach((w, k) => w.member.loads.forEach((load, position) => loads.push({ k, position, load })));
+    const total = list.length + loads.length + list.reduce((n, w) => n + w.analysis.results.length, 0);
     let done = 0;
     const step = (n: number) => {
       done += n;
@@ -197,13 +193,7 @@ export class ImportsRepository {
         : [l.x1, l.x2, l.w1, l.w2];
       return [ids[k], position, l.case, l.kind, x1, x2, v1, v2, l.origin.sheet, l.origin.row, l.origin.column ?? null];
     }, step);
-    await copyRows(trx, 'results', RESULT_COLUMNS, results.length, (i) => {
-      const { k, result: r } = results[i];
-      return [
-        ids[k], revisionId, r.checkName, r.combination, r.ruleId, r.segmentIndex, r.segmentKind, r.segmentFrom, r.segmentTo, r.x,
-        r.deflection, r.effectiveLength, r.spanRatio, r.limitRatio, r.maxAbs, r.plus, r.allowed, r.governing, r.utilization, r.pass, r.requiredI,
-      ];
-    }, step);
+    await writeResultRows(trx, revisionId, ids, list.map((w) => w.analysis), step);
   }
 
   async discard(projectId: number, draftId: string): Promise<boolean> {

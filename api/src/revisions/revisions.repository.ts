@@ -75,53 +75,10 @@ export interface MemberToWrite {
   analysis: MemberAnalysis;
 }
 
-/** Rows per statement: large enough to keep round trips few, small enough to report progress. */
-const CHUNK = 4000;
-
 const REVISION_COLUMNS = [
   'r.id', 'r.project_id', 'r.number', 'r.label', 'r.uploaded_by', 'u.name as uploader_name', 'r.created_at', 'r.file_name',
   'r.file_type', 'r.file_size', 'r.member_count', 'r.pass_count', 'r.fail_count', 'r.status', 'r.limit_set_id',
 ];
-
-function chunks<T>(list: readonly T[], size: number): T[][] {
-  const out: T[][] = [];
-  for (let i = 0; i < list.length; i += size) out.push(list.slice(i, i + size));
-  return out;
-}
-
-/**
- * Inserts rows column-wise: `insert … select … from unnest($1::type[], …)`,
- * one array per column, so a chunk of thousands of rows is one statement with
- * a handful of parameters (multi-row VALUES would need one per cell and hit
- * PostgreSQL's 65,535-parameter limit). Doubles go over as their shortest
- * round-trip text, so no value changes on the way. `jsonb` columns travel as text.
- */
-async function insertColumns(trx: Trx, table: string, columns: readonly (readonly [name: string, type: string])[], rows: readonly unknown[][]): Promise<void> {
-  const names = columns.map(([n]) => `"${n}"`).join(', ');
-  const arrays = columns.map(([, t]) => `?::${t === 'jsonb' ? 'text' : t}[]`).join(', ');
-  const aliases = columns.map((_, i) => `c${i}`).join(', ');
-  const select = columns.map(([, t], i) => (t === 'jsonb' ? `c${i}::jsonb` : `c${i}`)).join(', ');
-  await trx.raw(`insert into ${table} (${names}) select ${select} from unnest(${arrays}) as t(${aliases})`, transpose(rows, columns.length) as Knex.Value[]);
-}
-
-const MEMBER_COLUMNS = [
-  ['id', 'int'], ['revision_id', 'int'], ['mark', 'text'], ['level_id', 'int'], ['level_name', 'text'], ['grid', 'text'], ['category', 'text'],
-  ['material', 'text'], ['section', 'text'], ['spans', 'jsonb'], ['left_overhang', 'float8'], ['right_overhang', 'float8'], ['supports', 'text'],
-  ['e', 'float8'], ['i', 'float8'], ['depth', 'float8'], ['camber', 'float8'], ['length', 'float8'], ['reviewer_id', 'int'], ['reviewer_email', 'text'],
-  ['notes', 'text'], ['source_row', 'int'], ['governing_check', 'text'], ['max_utilization', 'float8'], ['verdict', 'text'], ['required_i', 'float8'],
-] as const;
-
-const LOAD_COLUMNS = [
-  ['member_id', 'int'], ['position', 'int'], ['case', 'text'], ['kind', 'text'], ['x1', 'float8'], ['x2', 'float8'], ['value1', 'float8'],
-  ['value2', 'float8'], ['source_sheet', 'text'], ['source_row', 'int'], ['source_column', 'text'],
-] as const;
-
-const RESULT_COLUMNS = [
-  ['member_id', 'int'], ['revision_id', 'int'], ['check_name', 'text'], ['combination', 'text'], ['rule_id', 'text'], ['segment_index', 'int'],
-  ['segment_kind', 'text'], ['segment_from', 'float8'], ['segment_to', 'float8'], ['x', 'float8'], ['deflection', 'float8'],
-  ['effective_length', 'float8'], ['span_ratio', 'float8'], ['limit_ratio', 'float8'], ['max_abs', 'float8'], ['plus', 'float8'],
-  ['allowed', 'float8'], ['governing', 'text'], ['utilization', 'float8'], ['pass', 'boolean'], ['required_i', 'float8'],
-] as const;
 
 @Injectable()
 export class RevisionsRepository {
@@ -243,84 +200,4 @@ export class RevisionsRepository {
       .returning('id');
     return row.id;
   }
-
-  /**
-   * Members, their loads and their results, in chunks; `onChunk(rowsWritten,
-   * rowsTotal)` after each statement. Member ids are taken from the sequence
-   * first, so loads and results can refer to them without reading anything back.
-   */
-  async insertMembers(trx: Trx, revisionId: number, list: readonly MemberToWrite[], onChunk?: (done: number, total: number) => void): Promise<void> {
-    if (list.length === 0) return;
-    const ids: number[] = (await trx.raw(`select nextval('members_id_seq')::int as id from generate_series(1, ?)`, [list.length])).rows.map((r: { id: number }) => r.id);
-    const loadCount = list.reduce((n, m) => n + m.member.loads.length, 0);
-    const resultCount = list.reduce((n, m) => n + m.analysis.results.length, 0);
-    const total = list.length + loadCount + resultCount;
-    let done = 0;
-    const step = (n: number) => {
-      done += n;
-      onChunk?.(done, total);
-    };
-
-    const memberRows = list.map((w, k) => {
-      const m = w.member;
-      const a = w.analysis;
-      return [
-        ids[k], revisionId, m.mark, w.levelId, m.level, m.grid, m.category, m.material, m.section, JSON.stringify(m.spans),
-        m.leftOverhang, m.rightOverhang, m.supports, m.E, m.I, m.depth, m.camber, a.length, w.reviewerId, m.reviewerEmail, m.notes,
-        m.sourceRow, a.governingCheck, a.maxUtilization, a.verdict, a.requiredI,
-      ];
-    });
-    for (const part of chunks(memberRows, CHUNK)) {
-      await insertColumns(trx, 'members', MEMBER_COLUMNS, part);
-      step(part.length);
-    }
-
-    const loadRows: unknown[][] = [];
-    list.forEach((w, k) => {
-      w.member.loads.forEach((l, position) => {
-        const [x1, x2, v1, v2] =
-          l.kind === 'point' ? [l.x, null, l.P, null]
-          : l.kind === 'moment' ? [l.x, null, l.M, null]
-          : l.kind === 'udl' ? [l.x1, l.x2, l.w, null]
-          : [l.x1, l.x2, l.w1, l.w2];
-        loadRows.push([ids[k], position, l.case, l.kind, x1, x2, v1, v2, l.origin.sheet, l.origin.row, l.origin.column ?? null]);
-      });
-    });
-    for (const part of chunks(loadRows, CHUNK * 2)) {
-      await insertColumns(trx, 'member_loads', LOAD_COLUMNS, part);
-      step(part.length);
-    }
-
-    await this.insertResults(trx, revisionId, ids, list.map((w) => w.analysis), step);
-  }
-
-  /**
-   * The engine's results of stored members (`memberIds[k]` is the member of
-   * `analyses[k]`), column-wise like insertMembers; `step(rows)` after each
-   * statement.
-   */
-  async insertResults(trx: Trx, revisionId: number, memberIds: readonly number[], analyses: readonly MemberAnalysis[], step?: (rows: number) => void): Promise<void> {
-    const resultRows: unknown[][] = [];
-    analyses.forEach((a, k) => {
-      for (const r of a.results) {
-        resultRows.push([
-          memberIds[k], revisionId, r.checkName, r.combination, r.ruleId, r.segmentIndex, r.segmentKind, r.segmentFrom, r.segmentTo, r.x,
-          r.deflection, r.effectiveLength, r.spanRatio, r.limitRatio, r.maxAbs, r.plus, r.allowed, r.governing, r.utilization, r.pass, r.requiredI,
-        ]);
-      }
-    });
-    for (const part of chunks(resultRows, CHUNK * 2)) {
-      await insertColumns(trx, 'results', RESULT_COLUMNS, part);
-      step?.(part.length);
-    }
-  }
-}
-
-function transpose(rows: readonly unknown[][], width: number): unknown[][] {
-  const cols: unknown[][] = Array.from({ length: width }, () => new Array(rows.length));
-  for (let i = 0; i < rows.length; i++) {
-    const row = rows[i];
-    for (let j = 0; j < width; j++) cols[j][i] = row[j];
-  }
-  return cols;
 }
