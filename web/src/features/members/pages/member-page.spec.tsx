@@ -121,4 +121,25 @@ describe('Member: the calculation explained', () => {
     expect(await screen.findByText('L9-X1 not found')).toBeInTheDocument();
     expect(screen.getByText(/There is no member "L9-X1" in revision 2/)).toBeInTheDocument();
   });
+
+  it('says so when no check applies: no governing point, nothing to sum', async () => {
+    const detail = memberDetail();
+    memberApi({
+      'GET /api/projects/7/members/:mark': {
+        body: {
+          ...detail,
+          member: { ...detail.member, verdict: null, maxUtilization: null, requiredI: null, governingCheck: null },
+          beamInput: { ...detail.beamInput, checks: [] },
+          report: { ...detail.report, checks: [] },
+          results: [],
+          rules: [],
+        },
+      },
+    });
+    renderApp('/projects/7/members/L3-B12');
+    expect(await screen.findByText('No check applies to this member, so there is no governing point.')).toBeInTheDocument();
+    expect(screen.getByText('No check of the limit set applies to this member (its category, material or loads).')).toBeInTheDocument();
+    expect(screen.getAllByText('No check').length).toBeGreaterThan(0);
+    expect(screen.queryByRole('table', { name: 'Contributions' })).not.toBeInTheDocument();
+  });
 });
