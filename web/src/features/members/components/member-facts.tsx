@@ -11,7 +11,7 @@ export function MemberFacts({ detail }: { detail: MemberDetail }) {
   return (
     <Descriptions
       size="small"
-      column={{ xs: 1, sm: 2, md: 3, lg: 4 }}
+      column={{ xs: 1, sm: 2, lg: 3 }}
       items={[
         { key: 'level', label: 'Level', children: m.level.name },
         { key: 'grid', label: 'Grid', children: m.grid ?? none },
