@@ -109,7 +109,11 @@ async function main() {
           run('npm', ['run', '-s', 'typecheck', '-w', '@sagline/web']);
           r = { passed: 1, failed: 0, skipped: 0 };
         } else if (tier === 'unit') r = jestTier('unit', 'common/jest.config.js');
-        else if (tier === 'api') r = jestTier('api', 'api/jest.config.js', { TEST_PG_PORT: String(TEST_PG_PORT) });
+        else if (tier === 'api') {
+          // The import test of a workbook written by another program converts a CSV with LibreOffice.
+          ensureDebianPackage('/usr/bin/soffice', 'libreoffice-calc-nogui');
+          r = jestTier('api', 'api/jest.config.js', { TEST_PG_PORT: String(TEST_PG_PORT) });
+        }
         else if (tier === 'web') r = jestTier('web', 'web/jest.config.cjs');
         else if (tier === 'e2e') r = await e2eTier(cluster);
       } catch (e) {
