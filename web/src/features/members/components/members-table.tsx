@@ -1,4 +1,4 @@
-import { Link } from 'react-router-dom';
+import { Link, useLocation } from 'react-router-dom';
 import { memo, useMemo } from 'react';
 import { Table, Tag } from 'antd';
 import type { ColumnType, SortOrder } from 'antd/es/table/interface';
@@ -27,11 +27,21 @@ const SORT_FIELD: Partial<Record<MemberColumnKey, string>> = {
 const MUTED = { color: 'rgba(29, 39, 48, 0.45)' } as const;
 const DASH = <span style={MUTED}>—</span>;
 
-function sortOrderOf(view: MembersView, key: MemberColumnKey): SortOrder {
+/** A mark opening its member page; the page's "back" link returns to this very view (filters, page). */
+function MarkLink({ to, mark }: { to: string; mark: string }) {
+  const { pathname, search } = useLocation();
+  return (
+    <Link to={to} state={{ from: pathname + search }} style={{ fontWeight: 600 }}>
+      {mark}
+    </Link>
+  );
+}
+
+function sortOrderOf(sort: MemberSort, key: MemberColumnKey): SortOrder {
   const field = SORT_FIELD[key];
   if (!field) return null;
-  if (view.sort === field) return 'ascend';
-  if (view.sort === `-${field}`) return 'descend';
+  if (sort === field) return 'ascend';
+  if (sort === `-${field}`) return 'descend';
   return null;
 }
 
@@ -47,7 +57,6 @@ export const MembersTable = memo(function MembersTable({
   view,
   columns,
   unitSystem,
-  linkState,
   onChange,
 }: {
   projectId: number;
@@ -56,8 +65,6 @@ export const MembersTable = memo(function MembersTable({
   view: MembersView;
   columns: MemberColumnKey[];
   unitSystem: UnitSystemId;
-  /** Carried to the member page, so its "back" link returns to this view. */
-  linkState: unknown;
   onChange: (next: MembersView) => void;
 }) {
   const shown = useMemo(() => {
@@ -71,11 +78,7 @@ export const MembersTable = memo(function MembersTable({
         dataIndex: 'mark',
         fixed: 'left',
         width: 100,
-        render: (_v, m) => (
-          <Link to={memberHref(m.mark)} state={linkState} style={{ fontWeight: 600 }}>
-            {m.mark}
-          </Link>
-        ),
+        render: (_v, m) => <MarkLink to={memberHref(m.mark)} mark={m.mark} />,
       },
       level: { title: 'Level', dataIndex: ['level', 'name'], width: 70, ellipsis: { showTitle: true } },
       grid: {
@@ -177,11 +180,12 @@ export const MembersTable = memo(function MembersTable({
       ...all[key],
       key,
       sorter: SORT_FIELD[key] ? true : undefined,
-      sortOrder: SORT_FIELD[key] ? sortOrderOf(view, key) : undefined,
+      sortOrder: SORT_FIELD[key] ? sortOrderOf(view.sort, key) : undefined,
       sortDirections: all[key].sortDirections ?? (SORT_FIELD[key] ? (['ascend', 'descend'] as SortOrder[]) : undefined),
       showSorterTooltip: false,
     }));
-  }, [columns, view, unitSystem, linkState, projectId]);
+    // Only the sort and the revision shape the columns: a filter change keeps them, so rows on screen are not redrawn.
+  }, [columns, view.sort, view.revision, unitSystem, projectId]);
   const width = shown.reduce((sum, c) => sum + (typeof c.width === 'number' ? c.width : 120), 0);
 
   return (

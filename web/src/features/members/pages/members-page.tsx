@@ -1,5 +1,5 @@
 import { useCallback, useMemo } from 'react';
-import { useLocation, useSearchParams } from 'react-router-dom';
+import { useSearchParams } from 'react-router-dom';
 import { Button, Card, Flex, Select, Space, Typography } from 'antd';
 import { DownloadOutlined } from '@ant-design/icons';
 import type { MembersPage as MembersPageData, RevisionSummary } from '@sagline/common/api-types';
@@ -28,7 +28,6 @@ import { MembersTable } from '../components/members-table';
  */
 export function MembersPage() {
   const project = useCurrentProject();
-  const location = useLocation();
   const [params, setParams] = useSearchParams();
   const view = useMemo(() => readMembersView(params), [params]);
   const [columns, setColumns] = useMemberColumns();
@@ -42,9 +41,6 @@ export function MembersPage() {
   const mayRaise = can.raiseFlags(project.myRole) && isLatest;
   const failingView = useMemo<MembersView>(() => ({ ...view, verdict: ['fail'], sort: 'mark', page: 1, pageSize: 1 }), [view]);
   const failing = useMembers(project.id, mayRaise ? failingView : null);
-
-  // Stable between renders, so the (memoised) table redraws only when its rows or view change.
-  const linkState = useMemo(() => ({ from: location.pathname + location.search }), [location.pathname, location.search]);
 
   const onChange = useCallback(
     (next: MembersView) => setParams(membersSearchParams(next), { replace: false }),
@@ -109,7 +105,6 @@ export function MembersPage() {
               view={view}
               columns={columns}
               unitSystem={project.unitSystem}
-              linkState={linkState}
               onChange={onChange}
             />
           )}
