@@ -148,6 +148,11 @@ describe('members: list, facets and one member explained', () => {
     expect(pages).toEqual(['B1', 'C1', 'B10', 'C2', 'B2', 'K1', 'U1']);
     const last = await list(`${r}&pageSize=3&page=3`);
     expect({ items: marks(last), total: last.total }).toEqual({ items: ['U1'], total: 7 });
+    // A page past the end, and a filter nothing matches: no rows, and still the total and the revision.
+    const past = await list(`${r}&pageSize=3&page=4`);
+    expect({ items: marks(past), total: past.total, revision: past.revision?.id }).toEqual({ items: [], total: 7, revision: rev1.id });
+    const none = await list(`${r}&q=nothing-like-this`);
+    expect({ items: marks(none), total: none.total, revision: none.revision?.id }).toEqual({ items: [], total: 0, revision: rev1.id });
   });
 
   it('counts each mark\'s flags that still need action', async () => {

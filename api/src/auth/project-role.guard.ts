@@ -29,11 +29,12 @@ export class ProjectRoleGuard implements CanActivate {
 
     const raw = String(req.params.projectId ?? '');
     const projectId = /^[1-9]\d{0,9}$/.test(raw) ? Number(raw) : NaN;
-    const notFound = new ApiError('NOT_FOUND', `Project ${raw} was not found, or you are not on its team.`);
-    if (!Number.isSafeInteger(projectId) || projectId > 2_147_483_647) throw notFound;
+    // Made only when thrown: an error captures a stack trace, a cost every allowed request would pay.
+    const notFound = () => new ApiError('NOT_FOUND', `Project ${raw} was not found, or you are not on its team.`);
+    if (!Number.isSafeInteger(projectId) || projectId > 2_147_483_647) throw notFound();
 
     const found = await this.auth.projectRole(projectId, user.id);
-    if (!found || (!found.role && !user.isAdmin)) throw notFound;
+    if (!found || (!found.role && !user.isAdmin)) throw notFound();
 
     const role = found.role;
     const may = allowed.length === 0 || (role !== null && allowed.includes(role)) || (user.isAdmin && allowed.includes('manager'));

@@ -218,7 +218,7 @@ export class MembersRepository {
 
   // ------------------------------------------------------------------ the list
 
-  private filtered(db: Knex | Trx, revisionId: number, f: MemberFilter) {
+  private filtered(db: Knex | Trx, revisionId: number | Knex.Raw, f: MemberFilter) {
     const q = db('members as m').where('m.revision_id', revisionId);
     if (f.levelIds?.length) q.whereIn('m.level_id', f.levelIds);
     if (f.categories?.length) q.whereIn('m.category', f.categories);
@@ -263,6 +263,56 @@ export class MembersRepository {
       .orderByRaw(ORDER[sort])
       .offset(offset)
       .limit(limit);
+  }
+
+  /**
+   * The Members page in one round trip: the revision (`latest` or an id of
+   * the project), the page of its members and their total under the filter.
+   * The revision is a CTE read through a scalar subquery (an InitPlan, so the
+   * (revision_id, …) indexes still give the sort order and stop at the page)
+   * and the total another uncorrelated subquery (run once, on the filter's
+   * own index: `count(*) over ()` would read every matching row in sort order).
+   * No row back (no such revision, no match, or a page past the end): the
+   * caller asks for the revision and the count on their own.
+   */
+  async listPageOfRevision(
+    projectId: number,
+    revision: 'latest' | number,
+    f: MemberFilter,
+    sort: MemberSort,
+    offset: number,
+    limit: number,
+  ): Promise<{ revision: RevisionRefRow; rows: MemberListRow[]; total: number } | null> {
+    const k = this.knex;
+    const rev =
+      revision === 'latest'
+        ? k('revisions').where({ project_id: projectId }).orderBy('number', 'desc').limit(1).select('id', 'number', 'label', 'created_at')
+        : k('revisions').where({ project_id: projectId, id: revision }).select('id', 'number', 'label', 'created_at');
+    const revisionId = k.raw('(select id from rev)');
+    const total = this.filtered(k, revisionId, f).count('*');
+    const rows = await this.filtered(k, revisionId, f)
+      .with('rev', rev)
+      .leftJoin('users as u', 'u.id', 'm.reviewer_id')
+      .leftJoin('levels as l', 'l.id', 'm.level_id')
+      .select(LIST_COLUMNS)
+      .select(this.openFlagCount(projectId))
+      .select(
+        k.raw('(?)::int as total_count', [total]),
+        k.raw('(select number from rev) as rev_number'),
+        k.raw('(select label from rev) as rev_label'),
+        k.raw('(select created_at from rev) as rev_created_at'),
+        k.raw('(select id from rev) as rev_id'),
+      )
+      .orderByRaw(ORDER[sort])
+      .offset(offset)
+      .limit(limit);
+    if (rows.length === 0) return null;
+    const first = rows[0] as MemberListRow & { total_count: number; rev_id: number; rev_number: number; rev_label: string | null; rev_created_at: Date };
+    return {
+      revision: { id: first.rev_id, number: first.rev_number, label: first.rev_label, created_at: first.rev_created_at },
+      rows: rows as MemberListRow[],
+      total: first.total_count,
+    };
   }
 
   async count(revisionId: number, f: MemberFilter): Promise<number> {

@@ -25,9 +25,16 @@ export class MembersService {
   ) {}
 
   async list(access: ProjectAccess, q: ListMembersQuery): Promise<MembersPage> {
+    const filter = toMemberFilter(q);
+    // The usual page (rows there): revision, rows and total in one query.
+    const offset = (q.page - 1) * q.pageSize;
+    const found = await this.members.listPageOfRevision(access.projectId, q.revision === 'latest' ? 'latest' : Number(q.revision), filter, q.sort, offset, q.pageSize);
+    if (found) {
+      return { items: found.rows.map(toMemberRow), total: found.total, page: q.page, pageSize: q.pageSize, revision: toRevisionRef(found.revision) };
+    }
+    // No row: say why (no revision yet, another project's revision, nothing matches, a page past the end).
     const revision = await this.revision(access.projectId, q.revision, { optional: true });
     if (!revision) return { items: [], total: 0, page: q.page, pageSize: q.pageSize, revision: null };
-    const filter = toMemberFilter(q);
     const [rows, total] = await Promise.all([
       this.members.listPage(access.projectId, revision.id, filter, q.sort, (q.page - 1) * q.pageSize, q.pageSize),
       this.members.count(revision.id, filter),
