@@ -153,11 +153,7 @@ export function checkZip(buf: Buffer, limits: ZipLimits): ZipEntry[] {
 
   let actual = 0;
   for (const entry of entries) {
-    const p = entry.localHeaderOffset;
-    if (p + 30 > buf.length || buf.readUInt32LE(p) !== SIG_LOCAL) throw damaged(`part "${entry.name}" is missing`);
-    const start = p + 30 + buf.readUInt16LE(p + 26) + buf.readUInt16LE(p + 28);
-    const end = start + entry.compressedSize;
-    if (end > buf.length) throw damaged(`part "${entry.name}" is cut short`);
+    const { start, end } = entryData(buf, entry);
     if (entry.method === 0) {
       if (entry.compressedSize !== entry.uncompressedSize) throw damaged(`part "${entry.name}" has inconsistent sizes`);
       actual += entry.uncompressedSize;
@@ -176,4 +172,24 @@ export function checkZip(buf: Buffer, limits: ZipLimits): ZipEntry[] {
     if (actual > limits.maxUnzippedBytes) throw tooLarge(actual);
   }
   return entries;
+}
+
+/** Where an entry's (compressed) bytes lie in the archive, after its local file header. */
+function entryData(buf: Buffer, entry: ZipEntry): { start: number; end: number } {
+  const p = entry.localHeaderOffset;
+  if (p + 30 > buf.length || buf.readUInt32LE(p) !== SIG_LOCAL) throw damaged(`part "${entry.name}" is missing`);
+  const start = p + 30 + buf.readUInt16LE(p + 26) + buf.readUInt16LE(p + 28);
+  const end = start + entry.compressedSize;
+  if (end > buf.length) throw damaged(`part "${entry.name}" is cut short`);
+  return { start, end };
+}
+
+/**
+ * One entry's content, for an archive checkZip has already accepted (the
+ * output is capped at the declared size all the same).
+ */
+export function inflateEntry(buf: Buffer, entry: ZipEntry): Buffer {
+  const { start, end } = entryData(buf, entry);
+  if (entry.method === 0) return buf.subarray(start, end);
+  return inflateRawSync(buf.subarray(start, end), { maxOutputLength: Math.max(1, entry.uncompressedSize) });
 }
