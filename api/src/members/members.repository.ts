@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { Inject, Injectable } from '@nestjs/common';
 import type { Knex } from '@sagline/database';
 import type { MemberSort, UnitSystem, Verdict } from '@sagline/common/api-types';
@@ -290,7 +291,7 @@ export class MembersRepository {
         : k('revisions').where({ project_id: projectId, id: revision }).select('id', 'number', 'label', 'created_at');
     const revisionId = k.raw('(select id from rev)');
     const total = this.filtered(k, revisionId, f).count('*');
-    const rows = await this.filtered(k, revisionId, f)
+    const query = this.filtered(k, revisionId, f)
       .with('rev', rev)
       .leftJoin('users as u', 'u.id', 'm.reviewer_id')
       .leftJoin('levels as l', 'l.id', 'm.level_id')
@@ -306,6 +307,10 @@ export class MembersRepository {
       .orderByRaw(ORDER[sort])
       .offset(offset)
       .limit(limit);
+    // A named (prepared) statement: PostgreSQL parses it once per connection and, after a few runs,
+    // keeps a generic plan, so the page costs no planning (planning this statement costs more than
+    // running it). The name is the statement's text hashed: one text, one name, whatever the values.
+    const rows = await query.options({ name: `members-page-${createHash('sha1').update(query.toSQL().sql).digest('base64url')}` });
     if (rows.length === 0) return null;
     const first = rows[0] as MemberListRow & { total_count: number; rev_id: number; rev_number: number; rev_label: string | null; rev_created_at: Date };
     return {
