@@ -76,6 +76,18 @@ describe('signing in and out', () => {
     expect((await c.post('/api/auth/sign-out')).status).toBe(204);
   });
 
+  it('reads the signed-in person afresh on every request: a rename or admin change shows at once, a deactivated account is signed out', async () => {
+    const other = await make.user({ name: 'Tomas Reyes' });
+    const c = await ApiClient.signedIn(t.http, other.email, PASSWORD);
+    // Several requests at once on one session: each sees the person (the session's read is shared by none).
+    const all = await Promise.all([1, 2, 3, 4, 5, 6].map(() => c.get('/api/auth/me')));
+    expect(all.map((r) => [r.status, r.body.user.name])).toEqual(Array(6).fill([200, 'Tomas Reyes']));
+    await t.knex('users').where({ id: other.id }).update({ name: 'Tomás Reyes', is_admin: true });
+    expect((await c.get('/api/auth/me')).body.user).toMatchObject({ name: 'Tomás Reyes', isAdmin: true });
+    await t.knex('users').where({ id: other.id }).update({ password_hash: null });
+    expectError(await c.get('/api/auth/me'), 401, 'UNAUTHENTICATED');
+  });
+
   it('keeps the session across an api restart (sessions live in PostgreSQL)', async () => {
     const c = await ApiClient.signedIn(t.http, person.email, PASSWORD);
     await t.restart();

@@ -4,6 +4,7 @@ import { UsersModule } from '../users/users.module';
 import { UsersRepository } from '../users/users.repository';
 import { AdminGuard } from './admin.guard';
 import { AuthController } from './auth.controller';
+import { SessionStore } from '../db/session-store';
 import { AuthRepository } from './auth.repository';
 import { AuthService } from './auth.service';
 import { AUTHENTICATOR, createAuthenticator } from './authenticator';
@@ -26,7 +27,7 @@ import { SignedInGuard } from './signed-in.guard';
     SignedInGuard,
     AdminGuard,
     ProjectRoleGuard,
-    { provide: AUTHENTICATOR, inject: [AuthService, UsersRepository], useFactory: createAuthenticator },
+    { provide: AUTHENTICATOR, inject: [AuthService, UsersRepository, SessionStore], useFactory: createAuthenticator },
   ],
   exports: [AuthRepository, AUTHENTICATOR, SignedInGuard, AdminGuard, ProjectRoleGuard],
 })

@@ -1,5 +1,7 @@
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
+import type { Request } from 'express';
+import type { SessionStore } from '../db/session-store';
 import type { UsersRepository } from '../users/users.repository';
 import { toMe } from '../users/users.mapper';
 import type { AuthService } from './auth.service';
@@ -15,7 +17,7 @@ export type Authenticator = passport.Authenticator;
  * only and reloads the person on each request, so a role or admin change
  * applies at once and a removed account is signed out.
  */
-export function createAuthenticator(auth: AuthService, users: UsersRepository): Authenticator {
+export function createAuthenticator(auth: AuthService, users: UsersRepository, sessions: SessionStore): Authenticator {
   const authenticator = new passport.Passport();
   authenticator.use(
     'local',
@@ -24,8 +26,12 @@ export function createAuthenticator(auth: AuthService, users: UsersRepository): 
     }),
   );
   authenticator.serializeUser((user, done) => done(null, user.id));
-  authenticator.deserializeUser((id: unknown, done) => {
+  // Three parameters: passport passes the request first. The session store has usually read the
+  // person with the session (one query for both); otherwise, read them here.
+  authenticator.deserializeUser((req: Request, id: unknown, done: (err: unknown, user?: Express.User | false) => void) => {
     if (typeof id !== 'number') return done(null, false);
+    const read = sessions.takeUser(req.sessionID, id);
+    if (read) return done(null, toMe(read));
     users.findActiveById(id).then((row) => done(null, row ? toMe(row) : false), done);
   });
   return authenticator;
