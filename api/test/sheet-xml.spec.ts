@@ -50,7 +50,7 @@ describe('fast sheet reader', () => {
     const ws = wb.addWorksheet('Members');
     ws.addRow(['Mark', 'Span', 'Double', 'When', 'Flag', 'Text']);
     ws.addRow(['B1', 6, { formula: 'B2*2', result: 12 }, new Date(Date.UTC(2026, 3, 1)), true, 'a & b < c "q" \'s\'']);
-    ws.addRow(['B2', 7, { sharedFormula: 'C2', result: 14 } as ExcelJS.CellValue, new Date(Date.UTC(2026, 3, 2, 12)), false, '  padded\ttab\nline  ']);
+    ws.addRow(['B2', 7, { sharedFormula: 'C2', result: 14 } as ExcelJS.CellValue, new Date(Date.UTC(2026, 3, 2, 12)), false, '  padded\ttab\nline\r\nwindows\rmac  ']);
     ws.addRow(['B3', 8, { formula: 'B4*2' } as ExcelJS.CellValue, null, null, { richText: [{ text: 'rich ' }, { font: { bold: true }, text: 'text' }] }]);
     ws.addRow(['B4', { error: '#DIV/0!' } as ExcelJS.CellValue, { formula: 'A5&"x"', result: 'B4x' }, { formula: 'D2+1', result: new Date(Date.UTC(2026, 3, 2)) }, { formula: 'TRUE()', result: true }, '']);
     ws.addRow([]);

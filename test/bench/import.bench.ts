@@ -130,7 +130,9 @@ async function measureImport(file: string, url: string, projectId: number, userI
 
 /** Runs one measurement in a fresh process (this script again, same loader). */
 function inChild(args: string[]): Measure {
-  const r = spawnSync(process.execPath, [...process.execArgv, __filename, ...args], { cwd: ROOT, encoding: 'utf8', env: process.env, maxBuffer: 16 * 1024 * 1024 });
+  // BENCH_CPU_PROF=<folder>: each child also writes a V8 CPU profile there (open it in Chrome's DevTools).
+  const prof = process.env.BENCH_CPU_PROF ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(process.env.BENCH_CPU_PROF)}`] : [];
+  const r = spawnSync(process.execPath, [...prof, ...process.execArgv, __filename, ...args], { cwd: ROOT, encoding: 'utf8', env: process.env, maxBuffer: 16 * 1024 * 1024 });
   const line = r.stdout.trim().split('\n').pop() ?? '';
   if (r.status !== 0 || !line.startsWith('{')) throw new Error(`bench child ${args[0]} failed (exit ${r.status}):\n${r.stdout}\n${r.stderr}`);
   return JSON.parse(line) as Measure;

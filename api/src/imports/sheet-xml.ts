@@ -36,8 +36,9 @@ export interface MergeRange {
 const ENTITY = /&(?:#(\d+)|#x([0-9a-fA-F]+)|(lt|gt|amp|quot|apos));/g;
 const NAMED: Record<string, string> = { lt: '<', gt: '>', amp: '&', quot: '"', apos: "'" };
 
-/** Text content with the XML entities resolved. */
-function xmlText(s: string): string {
+/** Text content with line ends normalised (XML 1.0 §2.11: CR LF and CR become LF) and the entities resolved. */
+function xmlText(raw: string): string {
+  const s = raw.indexOf('\r') < 0 ? raw : raw.replace(/\r\n?/g, '\n');
   if (s.indexOf('&') < 0) return s;
   return s.replace(ENTITY, (_m, dec: string | undefined, hex: string | undefined, name: string | undefined) =>
     dec ? String.fromCodePoint(Number(dec)) : hex ? String.fromCodePoint(parseInt(hex, 16)) : NAMED[name!],
