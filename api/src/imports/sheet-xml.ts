@@ -89,13 +89,33 @@ function tText(s: string): string {
   return out;
 }
 
-/** Column number (1-based) and row number of an A1 reference. */
+/** Column number (1-based) and row number of an A1 reference (`$` allowed), null when it is not one. */
 function decodeRef(ref: string): { col: number; row: number } | null {
-  const m = /^\$?([A-Z]{1,3})\$?(\d+)$/.exec(ref);
-  if (!m) return null;
+  let i = 0;
   let col = 0;
-  for (let i = 0; i < m[1].length; i++) col = col * 26 + (m[1].charCodeAt(i) - 64);
-  return { col, row: Number(m[2]) };
+  let row = 0;
+  if (ref.charCodeAt(i) === 36) i++;
+  const colStart = i;
+  for (let c = ref.charCodeAt(i); c >= 65 && c <= 90; c = ref.charCodeAt(++i)) col = col * 26 + (c - 64);
+  if (i === colStart || i - colStart > 3) return null;
+  if (ref.charCodeAt(i) === 36) i++;
+  const rowStart = i;
+  for (let c = ref.charCodeAt(i); c >= 48 && c <= 57; c = ref.charCodeAt(++i)) row = row * 10 + (c - 48);
+  if (i === rowStart || i !== ref.length) return null;
+  return { col, row };
+}
+
+const CELL_ATTR = /([\w:]+)\s*=\s*(?:"([^"]*)"|'([^']*)')/g;
+
+/** The r, s and t attributes of a `<c>`, in one pass over its attributes. */
+function cellAttrs(attrs: string): { r?: string; s?: string; t?: string } {
+  const out: { r?: string; s?: string; t?: string } = {};
+  CELL_ATTR.lastIndex = 0;
+  for (let m = CELL_ATTR.exec(attrs); m; m = CELL_ATTR.exec(attrs)) {
+    const name = m[1];
+    if (name === 'r' || name === 's' || name === 't') out[name] = xmlText(m[2] ?? m[3]);
+  }
+  return out;
 }
 
 const CELL = /<row\b([^>]*?)(\/?)>|<c\b([^>]*?)(?:\/>|>([\s\S]*?)<\/c>)/g;
@@ -188,9 +208,9 @@ export function openXlsxSheets(buf: Buffer): XlsxSheets | null {
           row = rows[rowNo - 1] ?? (rows[rowNo - 1] = []);
           continue;
         }
-        const attrs = m[3];
+        const attrs = cellAttrs(m[3]);
         const inner = m[4];
-        const ref = attr(attrs, 'r');
+        const ref = attrs.r;
         const pos = ref ? decodeRef(ref) : null;
         if (pos) {
           if (pos.row !== rowNo) {
@@ -215,9 +235,8 @@ export function openXlsxSheets(buf: Buffer): XlsxSheets | null {
     },
   };
 
-  function cellValue(attrs: string, inner: string | undefined, ref: string, masters: Map<string, string>): CellValue {
-    const t = attr(attrs, 't');
-    const s = attr(attrs, 's');
+  function cellValue(attrs: { s?: string; t?: string }, inner: string | undefined, ref: string, masters: Map<string, string>): CellValue {
+    const { t, s } = attrs;
     const style = s === undefined ? 0 : Number(s);
     if (inner === undefined) return null;
     const f = /<f\b([^>]*?)(?:\/>|>([\s\S]*?)<\/f>)/.exec(inner);
