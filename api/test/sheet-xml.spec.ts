@@ -2,6 +2,7 @@ import ExcelJS from 'exceljs';
 import { displayValue, resolveCell, type CellValue } from '@sagline/common/schedule';
 import { openXlsxSheets } from '../src/imports/sheet-xml';
 import { readWorkbook } from '../src/imports/workbook-reader';
+import { zipOf } from './fixtures/bad-files';
 import { floorBeams, xlsxOf } from './fixtures/schedule-files';
 
 /**
@@ -74,6 +75,48 @@ describe('fast sheet reader', () => {
     ws.addRow(['B1', new Date(Date.UTC(2026, 0, 15))]);
     ws.getCell('B2').numFmt = 'd-mmm-yy';
     await expectSameAsExceljs(Buffer.from(await wb.xlsx.writeBuffer()));
+  });
+
+  it('reads a hand-written workbook: parts under other names, rows and cells without references, inline strings', async () => {
+    const xml = (s: string) => Buffer.from(`<?xml version="1.0" encoding="UTF-8" standalone="yes"?>\n${s}`);
+    const ns = 'xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main" xmlns:r="http://schemas.openxmlformats.org/officeDocument/2006/relationships"';
+    const rel = 'http://schemas.openxmlformats.org/officeDocument/2006/relationships';
+    const bytes = zipOf([
+      {
+        name: '[Content_Types].xml',
+        data: xml(
+          '<Types xmlns="http://schemas.openxmlformats.org/package/2006/content-types"><Default Extension="rels" ContentType="application/vnd.openxmlformats-package.relationships+xml"/><Default Extension="xml" ContentType="application/xml"/>' +
+            '<Override PartName="/xl/workbook.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.sheet.main+xml"/>' +
+            '<Override PartName="/xl/worksheets/list.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.worksheet+xml"/>' +
+            '<Override PartName="/xl/worksheets/other.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.worksheet+xml"/></Types>',
+        ),
+      },
+      { name: '_rels/.rels', data: xml(`<Relationships xmlns="http://schemas.openxmlformats.org/package/2006/relationships"><Relationship Id="rId1" Type="${rel}/officeDocument" Target="xl/workbook.xml"/></Relationships>`) },
+      { name: 'xl/worksheets/other.xml', data: xml(`<worksheet ${ns}><sheetData><row r="1"><c r="A1" t="inlineStr"><is><t>other</t></is></c></row></sheetData></worksheet>`) },
+      {
+        name: 'xl/worksheets/list.xml',
+        data: xml(
+          `<worksheet ${ns}><sheetData><row><c t="inlineStr"><is><t>Mark</t></is></c><c t="inlineStr"><is><t>Span</t></is></c></row>` +
+            '<row><c t="inlineStr"><is><t>B&amp;1</t></is></c><c><v>6.5</v></c></row>' +
+            '<row r="5"><c r="B5"><v>7</v></c><c t="inlineStr"><is><r><t>ri</t></r><r><t xml:space="preserve">ch </t></r></is></c></row></sheetData></worksheet>',
+        ),
+      },
+      { name: 'xl/_rels/workbook.xml.rels', data: xml(`<Relationships xmlns="http://schemas.openxmlformats.org/package/2006/relationships"><Relationship Id="rId7" Type="${rel}/worksheet" Target="/xl/worksheets/list.xml"/><Relationship Id="rId3" Type="${rel}/worksheet" Target="worksheets/other.xml"/></Relationships>`) },
+      { name: 'xl/workbook.xml', data: xml(`<workbook ${ns}><sheets><sheet name="Other &amp; notes" sheetId="2" r:id="rId3"/><sheet name="Members" sheetId="1" r:id="rId7"/></sheets></workbook>`) },
+    ]);
+    const fast = openXlsxSheets(bytes)!;
+    expect(fast.names).toEqual(['Other & notes', 'Members']);
+    const members = fast.sheet('Members');
+    expect(members.rows.map((r) => Array.from(r, (c) => resolveCell(c)))).toEqual([
+      [{ kind: 'text', text: 'Mark' }, { kind: 'text', text: 'Span' }],
+      [{ kind: 'text', text: 'B&1' }, { kind: 'number', value: 6.5 }],
+      [],
+      [],
+      [{ kind: 'blank' }, { kind: 'number', value: 7 }, { kind: 'text', text: 'rich' }],
+    ]);
+    const read = await readWorkbook(bytes, 'hand.xlsx');
+    expect(read.problems).toEqual([]);
+    expect(read.members!.name).toBe('Members');
   });
 
   it('reports merged cells on the Members sheet from the sheet part itself', async () => {
