@@ -98,12 +98,20 @@ export class SignOffsService {
    */
   async voidTouchedLevels(trx: Trx, projectId: number, revision: { id: number; number: number }, diff: ImportDiff): Promise<string[]> {
     const touches = new Map<string, LevelTouch[]>();
+    // Marks already listed per level (lower case): a Set, as a first revision touches every member (10,000 in one level's list).
+    const listed = new Map<string, Set<string>>();
     const touch = (level: unknown, t: LevelTouch) => {
       if (typeof level !== 'string' || !level) return;
       const key = level.toLowerCase();
       const list = touches.get(key) ?? [];
-      if (!list.some((x) => x.mark.toLowerCase() === t.mark.toLowerCase())) list.push(t);
+      const marks = listed.get(key) ?? new Set<string>();
+      const mark = t.mark.toLowerCase();
+      if (!marks.has(mark)) {
+        marks.add(mark);
+        list.push(t);
+      }
       touches.set(key, list);
+      listed.set(key, marks);
     };
     for (const m of diff.added) touch(m.level, { mark: m.mark, how: 'added' });
     for (const m of diff.removed) touch(m.level, { mark: m.mark, how: 'removed' });
