@@ -239,9 +239,15 @@ export function openXlsxSheets(buf: Buffer): XlsxSheets | null {
     const { t, s } = attrs;
     const style = s === undefined ? 0 : Number(s);
     if (inner === undefined) return null;
-    const f = /<f\b([^>]*?)(?:\/>|>([\s\S]*?)<\/f>)/.exec(inner);
-    const vm = /<v\b[^>]*?(?:\/>|>([\s\S]*?)<\/v>)/.exec(inner);
-    const v = vm ? xmlText(vm[1] ?? '') : undefined;
+    let f: RegExpExecArray | null = null;
+    let v: string | undefined;
+    if (inner.startsWith('<v>') && inner.indexOf('<', 3) === inner.length - 4 && inner.endsWith('</v>')) {
+      v = xmlText(inner.slice(3, -4)); // the usual `<v>…</v>` alone: no search needed
+    } else {
+      f = /<f\b([^>]*?)(?:\/>|>([\s\S]*?)<\/f>)/.exec(inner);
+      const vm = /<v\b[^>]*?(?:\/>|>([\s\S]*?)<\/v>)/.exec(inner);
+      v = vm ? xmlText(vm[1] ?? '') : undefined;
+    }
     if (f) {
       const fAttrs = f[1];
       const shareType = attr(fAttrs, 't');
