@@ -1,4 +1,5 @@
-import { gunzipSync, gzipSync } from 'node:zlib';
+import { promisify } from 'node:util';
+import { gunzipSync, gzip } from 'node:zlib';
 import { Inject, Injectable } from '@nestjs/common';
 import type { Knex } from '@sagline/database';
 import type { ImportFileType, ImportProblem, UnitSystem } from '@sagline/common/api-types';
@@ -7,6 +8,18 @@ import { copyRows } from '../db/copy-rows';
 import { KNEX } from '../db/db.tokens';
 import type { Trx } from '../db/transaction';
 import type { MemberToWrite } from '../revisions/revisions.repository';
+
+const gzipAsync = promisify(gzip);
+
+/**
+ * A draft's members as its `members_gz`: JSON, gzip at the fastest level (the
+ * point is to keep PostgreSQL from parsing and compressing 5 MB of JSON). The
+ * compression runs on libuv's thread pool, so the preview starts it before
+ * the engine runs and it goes on on another core meanwhile.
+ */
+export function packMembers(members: readonly ScheduleMember[]): Promise<Buffer> {
+  return gzipAsync(JSON.stringify(members), { level: 1 });
+}
 
 export interface ProjectContext {
   id: number;
@@ -61,7 +74,8 @@ export interface NewDraft {
   unitSystem: UnitSystem;
   limitSetId: number;
   limitSetVersion: number;
-  members: readonly ScheduleMember[];
+  /** The parsed members, packed by `packMembers`. */
+  membersGz: Buffer;
   problems: readonly ImportProblem[];
   summary: DraftSummary;
   memberCount: number;
@@ -117,8 +131,7 @@ export class ImportsRepository {
         unit_system: d.unitSystem,
         limit_set_id: d.limitSetId,
         limit_set_version: d.limitSetVersion,
-        // Fastest level: the point is to keep PostgreSQL from parsing and compressing 5 MB of JSON.
-        members_gz: gzipSync(JSON.stringify(d.members), { level: 1 }),
+        members_gz: d.membersGz,
         problems: JSON.stringify(d.problems),
         summary: JSON.stringify(d.summary),
         member_count: d.memberCount,

@@ -11,7 +11,7 @@ import { DraftCache } from './draft-cache';
 import { ImportCommitService } from './import-commit.service';
 import { rowsInvalid } from './import-errors';
 import { ImportSettings } from './import-settings';
-import { ImportsRepository } from './imports.repository';
+import { ImportsRepository, packMembers } from './imports.repository';
 import { previewDiff, withVerdicts } from './preview-diff';
 import { readSchedule } from './schedule-reader';
 import type { UploadedSchedule } from './upload.interceptor';
@@ -63,6 +63,9 @@ export class ImportsService {
       this.settings,
     );
     if (read.problems.some((p) => p.severity === 'error')) throw rowsInvalid(read.problems);
+    // Compressed on another thread while the engine runs; awaited when the draft is stored.
+    const membersGz = packMembers(read.members);
+    membersGz.catch(() => undefined); // a rejection is seen where it is awaited; not unhandled if the engine throws first
 
     const outcome = analyzeMembers(read.members, set, { sheet: read.membersSheet });
     if (outcome.problems.length) throw rowsInvalid([...outcome.problems, ...read.problems]);
@@ -100,7 +103,7 @@ export class ImportsService {
       unitSystem: context.unitSystem,
       limitSetId: limitRow.id,
       limitSetVersion: limitRow.version,
-      members: read.members,
+      membersGz: await membersGz,
       problems: read.problems,
       summary: {
         ...preview.summary,
