@@ -69,25 +69,10 @@ test('checker filters failing members of a level, reads the calculation, raises 
 
   // The largest page the API gives (500 rows): the most a 10,000-member revision ever puts on screen.
   const all = Number((await checker.getByText(/ members, \d+ failing/).innerText()).match(/([\d,]+) members/)![1].replace(/,/g, ''));
-  let started = Date.now();
-  await checker.goto(`${projectUrl}/members?sort=-utilization`);
-  await expect(members.locator('tbody tr.ant-table-row')).toHaveCount(Math.min(all, 50));
-  const smallPage = Date.now() - started;
-  started = Date.now();
   await checker.goto(`${projectUrl}/members?pageSize=500`);
   await expect(members.locator('tbody tr.ant-table-row')).toHaveCount(Math.min(all, 500));
-  const bigPage = Date.now() - started;
-  started = Date.now();
-  await checker.getByRole('button', { name: /Failing only/ }).click();
-  await expect(checker.getByText(/\d+ match the filters/)).toBeVisible();
-  await expect(members.locator('tbody tr.ant-table-row').first()).toContainText('Fail');
-  const filtered = Date.now() - started;
-  // Timings of a shared, busy machine: printed, not asserted.
-  console.log(
-    `[review] page opened with 50 rows in ${smallPage} ms, with ${Math.min(all, 500)} rows in ${bigPage} ms (page loads); "Failing only" on those rows in ${filtered} ms`,
-  );
   await checker.goto(`${projectUrl}/members`);
-  await expect(members.locator('tbody tr.ant-table-row').first()).toBeVisible();
+  await expect(members.locator('tbody tr.ant-table-row')).toHaveCount(Math.min(all, 50));
 
   await checker.getByRole('button', { name: /Failing only/ }).click();
   await expect(checker).toHaveURL(/verdict=fail/);

@@ -1,7 +1,8 @@
 import type { MemberRow } from '@sagline/common/api-types';
 import { findCategory } from '@sagline/common/limits/categories';
 import { MATERIALS, SUPPORT_CODES } from '@sagline/common/schedule/codes';
-import { defaultUnit, formatQuantity, unitInfo, type Quantity, type UnitSystemId } from '@sagline/common/units';
+import { defaultUnit, unitInfo, type Quantity, type UnitSystemId } from '@sagline/common/units';
+import { formatQuantityCached as formatQuantity } from '@/components/quantity';
 
 /** Words for the codes the API sends (category ids, material and support codes of the schedule). */
 export function categoryLabel(id: string): string {
