@@ -1,7 +1,7 @@
 import { Link, useLocation } from 'react-router-dom';
 import { memo, useMemo } from 'react';
 import { Table, Tag } from 'antd';
-import type { ColumnType, SortOrder } from 'antd/es/table/interface';
+import type { ColumnType, SortOrder, TableRowSelection } from 'antd/es/table/interface';
 import type { MemberRow, MemberSort, MembersPage } from '@sagline/common/api-types';
 import type { UnitSystemId } from '@sagline/common/units';
 import { paths } from '@/app/paths';
@@ -58,6 +58,8 @@ export const MembersTable = memo(function MembersTable({
   columns,
   unitSystem,
   onChange,
+  selectedIds,
+  onSelect,
 }: {
   projectId: number;
   page: MembersPage | undefined;
@@ -66,6 +68,9 @@ export const MembersTable = memo(function MembersTable({
   columns: MemberColumnKey[];
   unitSystem: UnitSystemId;
   onChange: (next: MembersView) => void;
+  /** Ticks on the rows (managers assigning reviewers); without them the table has no checkboxes. */
+  selectedIds?: number[];
+  onSelect?: (ids: number[]) => void;
 }) {
   const shown = useMemo(() => {
     const memberHref = (mark: string) => {
@@ -186,7 +191,20 @@ export const MembersTable = memo(function MembersTable({
     }));
     // Only the sort and the revision shape the columns: a filter change keeps them, so rows on screen are not redrawn.
   }, [columns, view.sort, view.revision, unitSystem, projectId]);
-  const width = shown.reduce((sum, c) => sum + (typeof c.width === 'number' ? c.width : 120), 0);
+  const width = shown.reduce((sum, c) => sum + (typeof c.width === 'number' ? c.width : 120), 0) + (onSelect ? 32 : 0);
+  const rowSelection = useMemo<TableRowSelection<MemberRow> | undefined>(
+    () =>
+      selectedIds && onSelect
+        ? {
+            selectedRowKeys: selectedIds,
+            onChange: (keys) => onSelect(keys.map(Number)),
+            fixed: 'left',
+            columnWidth: 32,
+            getCheckboxProps: (m) => ({ 'aria-label': `Select ${m.mark}` }),
+          }
+        : undefined,
+    [selectedIds, onSelect],
+  );
 
   return (
     <Table<MemberRow>
@@ -196,6 +214,7 @@ export const MembersTable = memo(function MembersTable({
       loading={loading}
       dataSource={page?.items ?? []}
       columns={shown}
+      rowSelection={rowSelection}
       scroll={{ x: width }}
       locale={{ emptyText: page?.revision === null ? 'No revision yet: upload the member schedule on the Imports screen.' : 'No member matches these filters.' }}
       onChange={(pagination, _filters, sorter, extra) => {

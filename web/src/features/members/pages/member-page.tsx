@@ -13,6 +13,7 @@ import { RegionBoundary } from '@/components/region-boundary';
 import { UtilisationBar } from '@/components/utilisation-bar';
 import { VerdictTag } from '@/components/verdict-tag';
 import { MemberFlags } from '@/features/flags/components/member-flags';
+import { AssignReviewerButton } from '@/features/overview/components/assign-reviewer-button';
 import { useCurrentProject } from '@/lib/current-project';
 import { useMember } from '../api/get-member';
 import { ChecksTable, governingResult, resultKey } from '../components/checks-table';
@@ -89,6 +90,8 @@ function MemberView({ detail, back }: { detail: MemberDetail; back: ReactNode })
       governing && resultKey(r) === resultKey(governing) ? ' (governing)' : ''
     }`;
   const latest = detail.history.filter((h) => h.present).at(-1);
+  // Managers and admins give the member a reviewer of its own (the latest revision's members only).
+  const mayAssign = (project.myRole === 'manager' || project.myRole === 'admin') && detail.isLatest;
 
   return (
     <Flex vertical gap={16}>
@@ -128,7 +131,20 @@ function MemberView({ detail, back }: { detail: MemberDetail; back: ReactNode })
         />
       )}
 
-      <Card size="small" title="Member">
+      <Card
+        size="small"
+        title="Member"
+        extra={
+          mayAssign ? (
+            <AssignReviewerButton
+              projectId={project.id}
+              marks={[m.mark]}
+              size="small"
+              tooltip={`Give ${m.mark} a reviewer of its own (it beats its level’s and the schedule’s), or let it follow theirs again.`}
+            />
+          ) : undefined
+        }
+      >
         <MemberFacts detail={detail} />
       </Card>
 

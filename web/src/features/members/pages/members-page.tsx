@@ -1,4 +1,4 @@
-import { useCallback, useMemo } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { Button, Card, Flex, Select, Space, Typography } from 'antd';
 import { DownloadOutlined } from '@ant-design/icons';
@@ -7,11 +7,12 @@ import { CautionNote } from '@/components/caution-note';
 import { LoadError } from '@/components/load-error';
 import { RegionBoundary } from '@/components/region-boundary';
 import { BulkRaiseButton } from '@/features/flags/components/bulk-raise-button';
+import { AssignReviewerButton } from '@/features/overview/components/assign-reviewer-button';
 import { useCurrentProject } from '@/lib/current-project';
 import { formatDateTime } from '@/lib/format';
 import { can } from '@/lib/roles';
 import { useMemberFacets } from '../api/get-member-facets';
-import { useMembers } from '../api/get-members';
+import { membersKey, useMembers } from '../api/get-members';
 import { useRevisions } from '../api/get-revisions';
 import { resultsWorkbookHref } from '../api/member-urls';
 import { ColumnChooser } from '../components/column-chooser';
@@ -41,6 +42,13 @@ export function MembersPage() {
   const mayRaise = can.raiseFlags(project.myRole) && isLatest;
   const failingView = useMemo<MembersView>(() => ({ ...view, verdict: ['fail'], sort: 'mark', page: 1, pageSize: 1 }), [view]);
   const failing = useMembers(project.id, mayRaise ? failingView : null);
+  // Managers and admins select members of the page on screen and give them a reviewer of their own
+  // (the API takes the latest revision's marks). As on the Flags screen, a new filter or page clears the selection.
+  const mayAssign = (project.myRole === 'manager' || project.myRole === 'admin') && isLatest;
+  const [selected, setSelected] = useState<number[]>([]);
+  const listKey = membersKey(project.id, view);
+  useEffect(() => setSelected([]), [listKey]);
+  const clearSelected = useCallback(() => setSelected([]), []);
 
   const onChange = useCallback(
     (next: MembersView) => setParams(membersSearchParams(next), { replace: false }),
@@ -50,6 +58,10 @@ export function MembersPage() {
   const page = members.data;
   const shownRevision = page?.revision ?? facets.data?.revision ?? null;
   const failingCount = failing.data?.total;
+  const selectedMarks = useMemo(() => {
+    const ids = new Set(selected);
+    return (page?.items ?? []).filter((m) => ids.has(m.id)).map((m) => m.mark);
+  }, [selected, page]);
 
   return (
     <Flex vertical gap={16}>
@@ -86,6 +98,26 @@ export function MembersPage() {
             {mayRaise && failingCount !== undefined && page?.revision && (
               <BulkRaiseButton projectId={project.id} query={toMemberListQuery(view)} failingCount={failingCount} />
             )}
+            {mayAssign && page?.revision && (
+              <Space>
+                {selectedMarks.length > 0 && (
+                  <Button type="link" size="small" onClick={clearSelected}>
+                    Clear selection
+                  </Button>
+                )}
+                <AssignReviewerButton
+                  projectId={project.id}
+                  marks={selectedMarks}
+                  label={assignLabel(selectedMarks.length)}
+                  tooltip={
+                    selectedMarks.length
+                      ? `Give ${selectedMarks.length === 1 ? selectedMarks[0] : `these ${selectedMarks.length} members`} a reviewer of their own; it beats their level’s and the schedule’s.`
+                      : 'Choose members in the table first (the box in the header chooses the whole page), then give them a reviewer of their own.'
+                  }
+                  onDone={clearSelected}
+                />
+              </Space>
+            )}
           </Flex>
           <CautionNote />
         </Flex>
@@ -106,6 +138,8 @@ export function MembersPage() {
               columns={columns}
               unitSystem={project.unitSystem}
               onChange={onChange}
+              selectedIds={mayAssign ? selected : undefined}
+              onSelect={mayAssign ? setSelected : undefined}
             />
           )}
         </RegionBoundary>
@@ -113,6 +147,10 @@ export function MembersPage() {
     </Flex>
   );
 }
+
+/** "Assign reviewer to selected members" (none yet), "… to 1 selected member", "… to 3 selected members". */
+const assignLabel = (n: number) =>
+  n === 0 ? 'Assign reviewer to selected members' : `Assign reviewer to ${n} selected member${n === 1 ? '' : 's'}`;
 
 function Summary({
   page,
