@@ -7,6 +7,13 @@ export { seedDemo, hasUsers } from './seeds/demo';
 export { DEMO_PEOPLE, DEMO_PASSWORD, DEMO_PROJECT, type DemoPerson } from './seeds/demo-people';
 export type { Knex } from 'knex';
 
+/**
+ * PostgreSQL NOTIFY channel on which every committed write to the data the api answers with is announced
+ * (migration 20261203010000_notify_data_changes; the payload is the table's name). The api listens on it to
+ * drop what it has cached (api/src/db/data-version.ts).
+ */
+export const DATA_CHANGED_CHANNEL = 'sagline_data_changed';
+
 /** A Knex instance for a PostgreSQL URL (the api, the CLI and the tests all use this). */
 export function createKnex(url: string, pool?: Knex.PoolConfig): Knex {
   return knexFactory(knexConfig(url, pool));

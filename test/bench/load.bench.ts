@@ -28,6 +28,11 @@
  *
  * `--workers n` starts the api with API_WORKERS=n (n processes sharing the port, node:cluster);
  * the api's CPU is then that of all its processes.
+ *
+ * Each route is measured twice, back to back: on a second api started with READ_CACHE=off (port
+ * LOAD_PORT + 1: every session, role and answer read from PostgreSQL) and on the api as shipped
+ * (answers kept in memory until the data changes, api/src/db/read-cache.ts); a third line gives
+ * the ratios, which hold better than either figure on this shared machine.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -176,6 +181,7 @@ async function main(): Promise<void> {
   const url = `${server}/${dbName}`;
   const knex = createKnex(url, { min: 0, max: 2 });
   let api: ChildProcess | null = null;
+  let uncached: ChildProcess | null = null;
   try {
     await migrateLatest(knex);
     // People: the engineer uploads, a checker raises, four more engineers get the flags, the manager watches.
@@ -197,32 +203,39 @@ async function main(): Promise<void> {
     const reviewers = [1, 2, 3, 4].map((k) => ids[`load.reviewer${k}@firm.example`]);
 
     say(`api: node api/dist/main.js on 127.0.0.1:${port} (NODE_ENV=production, ${workers === 1 ? 'one process' : `API_WORKERS=${workers}: ${workers} processes`}), database ${dbName}`);
-    api = spawn(process.execPath, [mainJs], {
-      cwd: ROOT,
-      env: {
-        PATH: process.env.PATH,
-        NODE_ENV: 'production',
-        DATABASE_URL: url,
-        HOST: '127.0.0.1',
-        PORT: String(port),
-        PUBLIC_URL: `http://127.0.0.1:${port}`,
-        SESSION_SECRET: randomBytes(48).toString('base64'),
-        // Mail goes to the outbox; nothing listens here, and the retry timer is off.
-        SMTP_URL: 'smtp://127.0.0.1:9',
-        MAIL_RETRY_SECONDS: '0',
-        SIGN_IN_RATE_LIMIT: '1000/1m',
-        JOBS_POLL_SECONDS: '0.5',
-        API_WORKERS: String(workers),
-      },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    let apiLog = '';
-    api.stdout!.on('data', (d: Buffer) => (apiLog += d.toString()));
-    api.stderr!.on('data', (d: Buffer) => (apiLog += d.toString()));
+    const sessionSecret = randomBytes(48).toString('base64');
+    const startApi = async (apiPort: number, readCache: 'on' | 'off'): Promise<ChildProcess> => {
+      const child = spawn(process.execPath, [mainJs], {
+        cwd: ROOT,
+        env: {
+          PATH: process.env.PATH,
+          NODE_ENV: 'production',
+          DATABASE_URL: url,
+          HOST: '127.0.0.1',
+          PORT: String(apiPort),
+          PUBLIC_URL: `http://127.0.0.1:${apiPort}`,
+          // The same secret: a session cookie of one api works on the other.
+          SESSION_SECRET: sessionSecret,
+          // Mail goes to the outbox; nothing listens here, and the retry timer is off.
+          SMTP_URL: 'smtp://127.0.0.1:9',
+          MAIL_RETRY_SECONDS: '0',
+          SIGN_IN_RATE_LIMIT: '1000/1m',
+          JOBS_POLL_SECONDS: '0.5',
+          API_WORKERS: String(workers),
+          READ_CACHE: readCache,
+        },
+        stdio: ['ignore', 'pipe', 'pipe'],
+      });
+      let log = '';
+      child.stdout!.on('data', (d: Buffer) => (log += d.toString()));
+      child.stderr!.on('data', (d: Buffer) => (log += d.toString()));
+      await waitFor(`http://127.0.0.1:${apiPort}/api/health`, child, 60_000).catch((e: Error) => {
+        throw new Error(`${e.message}\n${log}`);
+      });
+      return child;
+    };
+    api = await startApi(port, 'on');
     const base = `http://127.0.0.1:${port}`;
-    await waitFor(`${base}/api/health`, api, 60_000).catch((e: Error) => {
-      throw new Error(`${e.message}\n${apiLog}`);
-    });
 
     const signIn = async (email: string): Promise<Session> => {
       const s = new Session(base);
@@ -294,43 +307,54 @@ async function main(): Promise<void> {
       const { rows } = await knex.raw<{ rows: { pid: number }[] }>('select pid from pg_stat_activity where datname = current_database() and pid <> pg_backend_pid()');
       return new Map(rows.flatMap((r) => (cpuSeconds(r.pid) === null ? [] : [[r.pid, cpuSeconds(r.pid)!] as [number, number]])));
     };
-    say('| route | p50 | p95 | p99 | requests/s | non-2xx | CPU per request: api + PostgreSQL | two idle cores could serve |');
-    say('|---|---|---|---|---|---|---|---|');
-    for (const route of routes) {
-      const probe = await manager.request('GET', route.path);
-      if (probe.status === 404 && route.name === 'Overview') {
-        say(`| ${route.name} | (not in this build: ${probe.status}) | | | | | | |`);
-        continue;
-      }
-      if (probe.status !== 200) throw new Error(`GET ${route.path} → ${probe.status} ${JSON.stringify(probe.body).slice(0, 300)}`);
-      const opts = { url: base + route.path, connections, headers: { cookie: manager.cookieHeader, accept: 'application/json' } };
+    // The same api with READ_CACHE=off beside it (same database and session secret), measured right
+    // before the cached one on each route: the ratio of the two comes from one run on one machine state.
+    uncached = await startApi(port + 1, 'off');
+    const uncachedBase = `http://127.0.0.1:${port + 1}`;
+    say('| route | api | p50 | p95 | p99 | requests/s | non-2xx | CPU per request: api + PostgreSQL | two idle cores could serve |');
+    say('|---|---|---|---|---|---|---|---|---|');
+    const measure = async (target: ChildProcess, url0: string) => {
+      const opts = { url: url0, connections, headers: { cookie: manager.cookieHeader, accept: 'application/json' } };
       await autocannon({ ...opts, duration: 3 });
       const latencies: number[] = [];
-      const apiBefore = treeCpuSeconds(api.pid!);
+      const apiBefore = treeCpuSeconds(target.pid!);
       const dbBefore = await backends();
       const run = autocannon({ ...opts, duration: seconds });
       run.on('response', (_c, _status, _bytes, ms) => latencies.push(ms));
       const result = await run;
-      const apiAfter = treeCpuSeconds(api.pid!);
+      const apiAfter = treeCpuSeconds(target.pid!);
       const dbAfter = await backends();
       let dbCpu = 0;
       for (const [pid, after] of dbAfter) dbCpu += after - (dbBefore.get(pid) ?? 0);
       const n = Math.max(1, result.requests.total);
       const apiMs = apiBefore === null || apiAfter === null ? NaN : ((apiAfter - apiBefore) * 1000) / n;
       const dbMs = (dbCpu * 1000) / n;
-      // Each api process uses one core at most; they and PostgreSQL share two.
-      const ceiling = Math.min((Math.min(workers, 2) * 1000) / apiMs, 2000 / (apiMs + dbMs));
       latencies.sort((a, b) => a - b);
-      const f = (ms: number) => `${ms.toFixed(1)} ms`;
-      const p95 = percentile(latencies, 95);
-      say(
-        `| ${route.name} | ${f(percentile(latencies, 50))} | ${f(p95)}${p95 <= 50 ? '' : ' (over 50)'} | ${f(percentile(latencies, 99))} | ${(result.requests.total / result.duration).toFixed(0)} | ${result.non2xx + result.errors + result.timeouts} | ${apiMs.toFixed(2)} + ${dbMs.toFixed(2)} ms | ${Number.isFinite(ceiling) ? `${ceiling.toFixed(0)} requests/s` : '?'} |`,
-      );
+      return { result, apiMs, dbMs, p50: percentile(latencies, 50), p95: percentile(latencies, 95), p99: percentile(latencies, 99), rps: result.requests.total / result.duration };
+    };
+    for (const route of routes) {
+      const probe = await manager.request('GET', route.path);
+      if (probe.status !== 200) throw new Error(`GET ${route.path} → ${probe.status} ${JSON.stringify(probe.body).slice(0, 300)}`);
+      const runs = [
+        { label: 'READ_CACHE=off', m: await measure(uncached, uncachedBase + route.path) },
+        { label: 'cached (default)', m: await measure(api, base + route.path) },
+      ];
+      for (const { label, m } of runs) {
+        // Each api process uses one core at most; they and PostgreSQL share two.
+        const ceiling = Math.min((Math.min(workers, 2) * 1000) / m.apiMs, 2000 / (m.apiMs + m.dbMs));
+        const f = (ms: number) => `${ms.toFixed(1)} ms`;
+        say(
+          `| ${route.name} | ${label} | ${f(m.p50)} | ${f(m.p95)}${m.p95 <= 50 ? '' : ' (over 50)'} | ${f(m.p99)} | ${m.rps.toFixed(0)} | ${m.result.non2xx + m.result.errors + m.result.timeouts} | ${m.apiMs.toFixed(2)} + ${m.dbMs.toFixed(2)} ms | ${Number.isFinite(ceiling) ? `${ceiling.toFixed(0)} requests/s` : '?'} |`,
+        );
+      }
+      const [off, on] = runs.map((r) => r.m);
+      say(`|   | cached ÷ off | | ${(on.p95 / off.p95).toFixed(2)}× | | ${(on.rps / off.rps).toFixed(2)}× | | ${((on.apiMs + on.dbMs) / (off.apiMs + off.dbMs)).toFixed(2)}× CPU | |`);
     }
     say(`\nload average after the runs: ${loadavg()}`);
     if (keep) say(`kept: ${url}`);
   } finally {
     api?.kill('SIGTERM');
+    uncached?.kill('SIGTERM');
     await knex.destroy();
     if (!keep) await admin.raw(`drop database if exists "${dbName}" with (force)`);
     await admin.destroy();

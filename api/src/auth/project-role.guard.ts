@@ -3,10 +3,15 @@ import { Reflector } from '@nestjs/core';
 import type { Request } from 'express';
 import type { ProjectRole } from '@sagline/common/api-types';
 import { ApiError } from '../common/api-error';
+import { DataVersion } from '../db/data-version';
 import { AuthRepository } from './auth.repository';
 import { PROJECT_ACCESS, type ProjectAccess } from './project-access';
 
 export const PROJECT_ROLES_KEY = 'sagline:projectRoles';
+
+/** Roles kept in memory per person and project while the data version stays put. */
+const KEPT_MAX = 10_000;
+type Found = { role: ProjectRole | null } | undefined;
 
 /**
  * Decides who may use a `/projects/:projectId/...` route, from the roles that
@@ -16,10 +21,27 @@ export const PROJECT_ROLES_KEY = 'sagline:projectRoles';
  */
 @Injectable()
 export class ProjectRoleGuard implements CanActivate {
+  private readonly kept = new Map<string, { version: number; found: Found }>();
+
   constructor(
     private readonly reflector: Reflector,
     private readonly auth: AuthRepository,
+    private readonly dataVersion: DataVersion,
   ) {}
+
+  /** The caller's role on the project (undefined: no such project), from memory while no role, project or person changed. */
+  private async roleOf(projectId: number, userId: number): Promise<Found> {
+    const version = this.dataVersion.current();
+    const key = `${userId}:${projectId}`;
+    const hit = this.kept.get(key);
+    if (hit && hit.version === version) return hit.found;
+    const found = await this.auth.projectRole(projectId, userId);
+    if (version !== null) {
+      if (this.kept.size >= KEPT_MAX) this.kept.clear();
+      this.kept.set(key, { version, found });
+    }
+    return found;
+  }
 
   async canActivate(context: ExecutionContext): Promise<boolean> {
     const req = context.switchToHttp().getRequest<Request>();
@@ -33,7 +55,7 @@ export class ProjectRoleGuard implements CanActivate {
     const notFound = () => new ApiError('NOT_FOUND', `Project ${raw} was not found, or you are not on its team.`);
     if (!Number.isSafeInteger(projectId) || projectId > 2_147_483_647) throw notFound();
 
-    const found = await this.auth.projectRole(projectId, user.id);
+    const found = await this.roleOf(projectId, user.id);
     if (!found || (!found.role && !user.isAdmin)) throw notFound();
 
     const role = found.role;

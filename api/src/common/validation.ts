@@ -1,4 +1,5 @@
 import { ValidationPipe, type ArgumentMetadata, type ValidationError } from '@nestjs/common';
+import { LRUCache } from 'lru-cache';
 import type { ApiErrorDetail } from '@sagline/common/api-types';
 import { ApiError } from './api-error';
 
@@ -8,6 +9,13 @@ import { ApiError } from './api-error';
  * 400 VALIDATION_FAILED with one detail per problem, `path` like `body.email`.
  */
 export class ApiValidationPipe extends ValidationPipe {
+  /**
+   * Query strings already validated, per DTO class: a screen asks for the same few addresses again
+   * and again, and validating one costs more than answering it from the read cache. Only values
+   * that passed are kept (a bad query is checked, and refused, every time).
+   */
+  private readonly queries = new WeakMap<object, LRUCache<string, object>>();
+
   constructor() {
     super({
       whitelist: true,
@@ -30,6 +38,21 @@ export class ApiValidationPipe extends ValidationPipe {
     }
     // Route parameters typed as numbers are left to their own pipe (ParseIdPipe), which names them in its error.
     if (metadata.type === 'param' && !isDto(metadata.metatype)) return value;
+    if (metadata.type === 'query' && metadata.metatype && isDto(metadata.metatype) && value && typeof value === 'object') {
+      let seen = this.queries.get(metadata.metatype);
+      if (!seen) this.queries.set(metadata.metatype, (seen = new LRUCache<string, object>({ max: 1_000 })));
+      const key = JSON.stringify(value);
+      const hit = seen.get(key);
+      // A copy: whoever receives it may change its own query object.
+      if (hit) return Object.assign(Object.create(Object.getPrototypeOf(hit) as object) as object, hit);
+      const valid = (await this.checked(value, metadata)) as object;
+      seen.set(key, Object.assign(Object.create(Object.getPrototypeOf(valid) as object) as object, valid));
+      return valid;
+    }
+    return this.checked(value, metadata);
+  }
+
+  private async checked(value: unknown, metadata: ArgumentMetadata): Promise<unknown> {
     try {
       return await super.transform(value ?? {}, metadata);
     } catch (e) {

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import type { NestExpressApplication } from '@nestjs/platform-express';
-import type { NextFunction, Request, Response } from 'express';
+import express, { type NextFunction, type Request, type Response } from 'express';
 
 const isApi = (p: string) => p === '/api' || p.startsWith('/api/');
 
@@ -15,13 +15,15 @@ const isApi = (p: string) => p === '/api' || p.startsWith('/api/');
 export function serveWebApp(app: NestExpressApplication, dir: string): boolean {
   const index = path.join(dir, 'index.html');
   if (!fs.existsSync(index)) return false;
-  app.useStaticAssets(dir, {
+  const files = express.static(dir, {
     index: false,
     setHeaders: (res, file) => {
       const rel = path.relative(dir, file);
       res.setHeader('Cache-Control', rel.startsWith(`assets${path.sep}`) ? 'public, max-age=31536000, immutable' : 'no-cache');
     },
   });
+  // Never for /api: looking for a file there costs a file-system call on every api request.
+  app.use((req: Request, res: Response, next: NextFunction) => (isApi(req.path) ? next() : files(req, res, next)));
   app.use((req: Request, res: Response, next: NextFunction) => {
     if ((req.method !== 'GET' && req.method !== 'HEAD') || isApi(req.path) || path.extname(req.path)) return next();
     res.setHeader('Cache-Control', 'no-cache');

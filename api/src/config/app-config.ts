@@ -28,6 +28,8 @@ export interface AppConfig {
   imports: ImportConfig;
   /** This process's part in background jobs (JOBS_*, import-job-config.ts). */
   jobs: JobConfig;
+  /** Keep answers of busy read routes and sessions in memory until the data changes (READ_CACHE; db/data-version.ts). */
+  readCache: boolean;
 }
 
 /** Every bad variable, listed in one error so a deploy fails once, not once per variable. */
@@ -59,6 +61,8 @@ const DURATION_UNITS: Record<string, number> = { ms: 1, s: 1000, m: 60_000, h: 3
  *   It decides which address the rate limit counts and whether `Secure` cookies see HTTPS.
  * - MAIL_RETRY_SECONDS (60): how often queued e-mails are retried; 0 disables the timer
  * - IMPORT_* and JOBS_*: import caps and background jobs, listed in import-job-config.ts
+ * - READ_CACHE (on): `off` answers every request from the database (no session, role or page kept in
+ *   memory); for comparing, or when the database user may not LISTEN
  */
 export function parseConfig(env: Record<string, string | undefined>): AppConfig {
   const problems: string[] = [];
@@ -114,6 +118,8 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
   const mailRetryMs = integer('MAIL_RETRY_SECONDS', value('MAIL_RETRY_SECONDS') ?? '60', 0, 86_400, problems) * 1000;
   const imports = parseImportVariables(env, problems);
   const jobs = parseJobVariables(env, problems);
+  const readCacheRaw = value('READ_CACHE') ?? 'on';
+  if (readCacheRaw !== 'on' && readCacheRaw !== 'off') problems.push(`READ_CACHE "${readCacheRaw}" is not on or off`);
 
   if (problems.length) throw new ConfigError(problems);
   return {
@@ -133,6 +139,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     mailRetryMs,
     imports,
     jobs,
+    readCache: readCacheRaw !== 'off',
   };
 }
 

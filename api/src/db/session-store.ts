@@ -4,6 +4,7 @@ import session from 'express-session';
 import { Pool } from 'pg';
 import { APP_CONFIG } from '../config/config.tokens';
 import type { AppConfig } from '../config/app-config';
+import { DataVersion } from './data-version';
 
 const PgStore = connectPgSimple(session);
 
@@ -17,7 +18,7 @@ export interface SessionUserRow {
 
 /** The session and, when it names one, its active account (users with a password), in one statement. */
 const GET_WITH_USER = `
-  select s.sess, u.id as user_id, u.email as user_email, u.name as user_name, u.is_admin as user_is_admin
+  select s.sess, (extract(epoch from s.expire) * 1000)::float8 as expire_ms, u.id as user_id, u.email as user_email, u.name as user_name, u.is_admin as user_is_admin
     from sessions s
     left join users u
       on u.id = case when s.sess->'passport'->>'user' ~ '^[0-9]{1,9}$' then (s.sess->'passport'->>'user')::int end
@@ -32,6 +33,19 @@ const USERS_MAX = 10_000;
 const TOUCH_EVERY_MS = 60_000;
 const TOUCHED_MAX = 10_000;
 
+/** Sessions (with their person) kept in memory between changes of the data version. */
+const KEPT_MAX = 10_000;
+
+interface KeptSession {
+  /** DataVersion.current() read before the session was read from the database. */
+  version: number;
+  /** The session as stored (express-session changes the object it is given, so each request parses its own). */
+  json: string;
+  /** When the session ends, as stored, in ms. */
+  expireMs: number;
+  user: SessionUserRow | null;
+}
+
 /**
  * The rolling cookie makes express-session "touch" the session on every
  * request, and connect-pg-simple turns each touch into an UPDATE (a WAL
@@ -43,12 +57,25 @@ class ThrottledPgStore extends PgStore {
   private readonly touched = new Map<string, number>();
   /** The signed-in person read with each session, until passport takes it (see SessionStore.takeUser). */
   readonly users = new Map<string, { row: SessionUserRow; at: number }>();
+  /**
+   * Sessions read while the data version stayed put: a request answers from here without a query.
+   * A change of any session's contents or of any person (by anyone: triggers notify) moves the
+   * version, and this process's own writes drop the entry at once (set, destroy).
+   */
+  private readonly kept = new Map<string, KeptSession>();
 
   constructor(
     options: ConstructorParameters<typeof PgStore>[0],
     private readonly db: Pool,
+    private readonly dataVersion: DataVersion,
   ) {
     super(options);
+  }
+
+  private handUser(sid: string, row: SessionUserRow | null): void {
+    if (!row) return;
+    if (this.users.size >= USERS_MAX) this.users.clear();
+    this.users.set(sid, { row, at: Date.now() });
   }
 
   /**
@@ -58,7 +85,14 @@ class ThrottledPgStore extends PgStore {
    * UsersRepository.findActiveById requires.
    */
   override get(sid: string, fn: (err: unknown, session?: session.SessionData | null) => void): void {
-    this.db.query<{ sess: unknown } & Partial<Record<'user_id' | 'user_email' | 'user_name' | 'user_is_admin', unknown>>>(GET_WITH_USER, [sid, Math.ceil(Date.now() / 1000)]).then(
+    const version = this.dataVersion.current();
+    const hit = this.kept.get(sid);
+    if (hit && version !== null && hit.version === version && hit.expireMs >= Date.now()) {
+      this.handUser(sid, hit.user);
+      fn(null, JSON.parse(hit.json) as session.SessionData);
+      return;
+    }
+    this.db.query<{ sess: unknown; expire_ms: number } & Partial<Record<'user_id' | 'user_email' | 'user_name' | 'user_is_admin', unknown>>>(GET_WITH_USER, [sid, Math.ceil(Date.now() / 1000)]).then(
       (res) => {
         const row = res.rows[0];
         if (!row) return fn(null);
@@ -68,9 +102,14 @@ class ThrottledPgStore extends PgStore {
         } catch {
           return this.destroy(sid, (err) => fn(err));
         }
-        if (row.user_id !== null && row.user_id !== undefined) {
-          if (this.users.size >= USERS_MAX) this.users.clear();
-          this.users.set(sid, { row: { id: row.user_id as number, email: row.user_email as string, name: row.user_name as string, is_admin: row.user_is_admin as boolean }, at: Date.now() });
+        const user =
+          row.user_id !== null && row.user_id !== undefined
+            ? { id: row.user_id as number, email: row.user_email as string, name: row.user_name as string, is_admin: row.user_is_admin as boolean }
+            : null;
+        this.handUser(sid, user);
+        if (version !== null) {
+          if (this.kept.size >= KEPT_MAX) this.kept.clear();
+          this.kept.set(sid, { version, json: JSON.stringify(sess), expireMs: Number(row.expire_ms), user });
         }
         fn(null, sess);
       },
@@ -90,12 +129,31 @@ class ThrottledPgStore extends PgStore {
       if (this.touched.size >= TOUCHED_MAX) this.touched.clear();
     }
     this.touched.set(sid, now);
+    const hit = this.kept.get(sid);
+    if (hit && sess.cookie?.expires) hit.expireMs = new Date(sess.cookie.expires).getTime();
     super.touch(sid, sess, fn);
+  }
+
+  override set(sid: string, sess: session.SessionData, fn?: (err?: unknown) => void): void {
+    this.kept.delete(sid);
+    this.dataVersion.bump();
+    super.set(sid, sess, (err?: unknown) => {
+      // Once more after the write: a read that began during it must not be kept.
+      this.kept.delete(sid);
+      this.dataVersion.bump();
+      fn?.(err);
+    });
   }
 
   override destroy(sid: string, fn?: (err?: unknown) => void): void {
     this.touched.delete(sid);
-    super.destroy(sid, fn);
+    this.kept.delete(sid);
+    this.dataVersion.bump();
+    super.destroy(sid, (err?: unknown) => {
+      this.kept.delete(sid);
+      this.dataVersion.bump();
+      fn?.(err);
+    });
   }
 }
 
@@ -109,9 +167,9 @@ export class SessionStore implements OnApplicationShutdown {
   readonly store: session.Store;
   private readonly pool: Pool;
 
-  constructor(@Inject(APP_CONFIG) config: AppConfig) {
+  constructor(@Inject(APP_CONFIG) config: AppConfig, dataVersion: DataVersion) {
     this.pool = new Pool({ connectionString: config.databaseUrl, max: 5 });
-    this.store = new ThrottledPgStore({ pool: this.pool, tableName: 'sessions', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }, this.pool);
+    this.store = new ThrottledPgStore({ pool: this.pool, tableName: 'sessions', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }, this.pool, dataVersion);
   }
 
   /**

@@ -6,6 +6,7 @@ import type { SessionUser } from '../auth/session-user';
 import { ApiError, invalidField, notFound } from '../common/api-error';
 import { APP_CONFIG } from '../config/config.tokens';
 import type { AppConfig } from '../config/app-config';
+import { ReadCache } from '../db/read-cache';
 import { TransactionRunner, type Trx } from '../db/transaction';
 import { OutboxService } from '../mail/outbox.service';
 import { toMemberFilter } from '../members/member-filter';
@@ -41,6 +42,7 @@ export class FlagsService {
     private readonly outbox: OutboxService,
     private readonly tx: TransactionRunner,
     @Inject(APP_CONFIG) private readonly config: AppConfig,
+    private readonly cache: ReadCache,
   ) {}
 
   // ------------------------------------------------------------------ reads
@@ -64,9 +66,12 @@ export class FlagsService {
     return { items: rows.map(toFlag), total, page: q.page, pageSize: q.pageSize };
   }
 
-  async summary(access: ProjectAccess): Promise<FlagSummary> {
-    const latest = await this.members.latestRevision(access.projectId);
-    return toFlagSummary(await this.flags.summary(access.projectId, latest?.id ?? null));
+  /** Kept in memory while no data changed (db/read-cache.ts). */
+  summary(access: ProjectAccess): Promise<FlagSummary> {
+    return this.cache.get(`flags-summary:${access.projectId}`, async () => {
+      const latest = await this.members.latestRevision(access.projectId);
+      return toFlagSummary(await this.flags.summary(access.projectId, latest?.id ?? null));
+    });
   }
 
   async detail(access: ProjectAccess, flagId: number): Promise<FlagDetail> {

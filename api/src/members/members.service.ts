@@ -5,6 +5,7 @@ import { buildBeamInput, VERDICT_CAUTION, type LimitRule, type MaterialId } from
 import { memberBeamInput, memberChanges, type ScheduleMember } from '@sagline/common/schedule';
 import type { ProjectAccess } from '../auth/project-access';
 import { notFound } from '../common/api-error';
+import { ReadCache } from '../db/read-cache';
 import { FlagsService } from '../flags/flags.service';
 import type { ListMembersQuery } from './dto/list-members.dto';
 import { toMemberFilter } from './member-filter';
@@ -22,9 +23,20 @@ export class MembersService {
   constructor(
     private readonly members: MembersRepository,
     private readonly flags: FlagsService,
+    private readonly cache: ReadCache,
   ) {}
 
-  async list(access: ProjectAccess, q: ListMembersQuery): Promise<MembersPage> {
+  /** A page of the list, kept in memory per query while no data changed (db/read-cache.ts). */
+  list(access: ProjectAccess, q: ListMembersQuery): Promise<MembersPage> {
+    return this.cache.get(`members:${access.projectId}:${JSON.stringify(q)}`, () => this.readPage(access, q));
+  }
+
+  /** The facets (counts per level, category, …), kept like the list. */
+  facets(access: ProjectAccess, revisionParam: string): Promise<MemberFacets> {
+    return this.cache.get(`member-facets:${access.projectId}:${revisionParam}`, () => this.countFacets(access, revisionParam));
+  }
+
+  private async readPage(access: ProjectAccess, q: ListMembersQuery): Promise<MembersPage> {
     const filter = toMemberFilter(q);
     // The usual page (rows there): revision, rows and total in one query.
     const offset = (q.page - 1) * q.pageSize;
@@ -42,7 +54,7 @@ export class MembersService {
     return { items: rows.map(toMemberRow), total, page: q.page, pageSize: q.pageSize, revision: toRevisionRef(revision) };
   }
 
-  async facets(access: ProjectAccess, revisionParam: string): Promise<MemberFacets> {
+  private async countFacets(access: ProjectAccess, revisionParam: string): Promise<MemberFacets> {
     const revision = await this.revision(access.projectId, revisionParam, { optional: true });
     if (!revision) {
       return { revision: null, total: 0, verdicts: { pass: 0, fail: 0, unchecked: 0 }, levels: [], categories: [], materials: [], reviewers: [], checks: [] };

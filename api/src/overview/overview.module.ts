@@ -1,6 +1,5 @@
 import { Module } from '@nestjs/common';
 import { ActivityModule } from '../activity/activity.module';
-import { OverviewCache } from './overview-cache';
 import { OverviewRevisionHook } from './overview-revision-hook';
 import { OverviewController } from './overview.controller';
 import { OverviewRepository } from './overview.repository';
@@ -18,7 +17,7 @@ import { SignOffsService } from './sign-offs.service';
 @Module({
   imports: [ActivityModule],
   controllers: [OverviewController],
-  providers: [{ provide: OverviewCache, useFactory: () => new OverviewCache() }, OverviewRepository, OverviewService, ReviewerAssignmentsRepository, ReviewerAssignmentsService, SignOffsRepository, SignOffsService, OverviewRevisionHook],
+  providers: [OverviewRepository, OverviewService, ReviewerAssignmentsRepository, ReviewerAssignmentsService, SignOffsRepository, SignOffsService, OverviewRevisionHook],
   exports: [OverviewRevisionHook],
 })
 export class OverviewModule {}

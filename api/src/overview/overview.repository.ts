@@ -79,29 +79,6 @@ export class OverviewRepository {
     return this.knex('levels').where({ project_id: projectId }).orderBy('position').select('id', 'name', 'position');
   }
 
-  /**
-   * A fingerprint of everything the overview reads, cheap to compute (no
-   * member is read): the latest revision and its row version (a limit-set
-   * recompute rewrites its counts in place), the sum of the flags' versions
-   * (every flag change adds one), the assignments, the sign-offs, the levels,
-   * the project row, and today (overdue moves at midnight UTC). Any committed
-   * change the overview shows changes it; see overview-cache.ts.
-   */
-  async fingerprint(projectId: number): Promise<string> {
-    const { rows } = await this.knex.raw<{ rows: { key: string }[] }>(
-      `select concat_ws('|',
-         (select r.id || ':' || r.xmin::text from revisions r where r.project_id = ? order by r.number desc limit 1),
-         (select coalesce(sum(f.version), 0) || ':' || count(*) from flags f where f.project_id = ?),
-         (select count(*) || ':' || coalesce(max(a.id), 0) from reviewer_assignments a where a.project_id = ?),
-         (select count(*) || ':' || count(s.voided_at) from level_sign_offs s where s.project_id = ?),
-         (select string_agg(l.id || ':' || l.xmin::text, ',' order by l.id) from levels l where l.project_id = ?),
-         (select p.xmin::text from projects p where p.id = ?),
-         ${TODAY}::text) as key`,
-      [projectId, projectId, projectId, projectId, projectId, projectId],
-    );
-    return rows[0].key;
-  }
-
   async today(): Promise<string> {
     const { rows } = await this.knex.raw<{ rows: { today: string }[] }>(`select to_char(${TODAY}, 'YYYY-MM-DD') as today`);
     return rows[0].today;

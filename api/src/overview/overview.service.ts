@@ -2,7 +2,7 @@ import { Injectable } from '@nestjs/common';
 import type { FlagsOverTime, OverviewLevelRow, OverviewReviewerRow, ProjectOverview } from '@sagline/common/api-types';
 import type { ProjectAccess } from '../auth/project-access';
 import { notFound } from '../common/api-error';
-import { OverviewCache } from './overview-cache';
+import { ReadCache } from '../db/read-cache';
 import { EMPTY_COUNTS, toCounts, toOverviewRevision, toSignOff } from './overview.mapper';
 import { OverviewRepository, type OverviewGroupRow } from './overview.repository';
 import { ReviewerAssignmentsRepository } from './reviewer-assignments.repository';
@@ -15,20 +15,12 @@ export class OverviewService {
     private readonly repo: OverviewRepository,
     private readonly assignments: ReviewerAssignmentsRepository,
     private readonly signOffs: SignOffsRepository,
-    private readonly cache: OverviewCache<ProjectOverview>,
+    private readonly cache: ReadCache,
   ) {}
 
-  /** One window length per project is kept (the screen shows one at a time). */
-  private readonly series = new OverviewCache<FlagsOverTime>();
-
-  /** Answered from the cache while nothing it counts has changed (overview-cache.ts). */
-  async overview(access: ProjectAccess): Promise<ProjectOverview> {
-    const key = await this.repo.fingerprint(access.projectId);
-    const cached = this.cache.get(access.projectId, key);
-    if (cached) return cached;
-    const fresh = await this.count(access.projectId);
-    this.cache.set(access.projectId, key, fresh);
-    return fresh;
+  /** Answered from memory while no data changed (db/read-cache.ts). */
+  overview(access: ProjectAccess): Promise<ProjectOverview> {
+    return this.cache.get(`overview:${access.projectId}`, () => this.count(access.projectId));
   }
 
   private async count(projectId: number): Promise<ProjectOverview> {
@@ -88,15 +80,12 @@ export class OverviewService {
     };
   }
 
-  /** Cached like the overview, per window length. */
-  async flagsOverTime(access: ProjectAccess, days: number): Promise<FlagsOverTime> {
-    const key = `${days}|${await this.repo.fingerprint(access.projectId)}`;
-    const cached = this.series.get(access.projectId, key);
-    if (cached) return cached;
-    const points = await this.repo.flagsOverTime(access.projectId, days);
-    const fresh = { from: points[0]?.day ?? '', to: points[points.length - 1]?.day ?? '', points };
-    this.series.set(access.projectId, key, fresh);
-    return fresh;
+  /** Kept like the overview, per window length. */
+  flagsOverTime(access: ProjectAccess, days: number): Promise<FlagsOverTime> {
+    return this.cache.get(`flags-over-time:${access.projectId}:${days}`, async () => {
+      const points = await this.repo.flagsOverTime(access.projectId, days);
+      return { from: points[0]?.day ?? '', to: points[points.length - 1]?.day ?? '', points };
+    });
   }
 }
 

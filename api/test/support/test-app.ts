@@ -4,6 +4,7 @@ import { createKnex, type Knex } from '@sagline/database';
 import type { MailboxMessage } from '@sagline/common/api-types';
 import { createApp } from '../../src/app.factory';
 import { parseConfig, type AppConfig } from '../../src/config/app-config';
+import { DataVersion } from '../../src/db/data-version';
 import { startFakeSmtp, type FakeSmtp } from '../../src/mail/fake-smtp';
 import { OutboxService } from '../../src/mail/outbox.service';
 import { createTestDatabase } from './pg-admin';
@@ -70,6 +71,15 @@ export class TestApp {
   private async boot(): Promise<void> {
     this.app = await createApp(this.config, { logger: this.quiet ? false : ['error'] });
     this.http = this.app.getHttpServer();
+  }
+
+  /**
+   * Waits until the api has heard of every change the test wrote through its own connection
+   * (`knex`): the api keeps answers in memory until PostgreSQL notifies it of a change, and that
+   * notification travels on its own connection (db/data-version.ts).
+   */
+  async settled(): Promise<void> {
+    await this.app.get(DataVersion).caughtUp();
   }
 
   /** Closes the api and starts a new one on the same database (what a deploy or crash does). */
