@@ -32,7 +32,9 @@
  * Each route is measured twice, back to back: on a second api started with READ_CACHE=off (port
  * LOAD_PORT + 1: every session, role and answer read from PostgreSQL) and on the api as shipped
  * (answers kept in memory until the data changes, api/src/db/read-cache.ts); a third line gives
- * the ratios, which hold better than either figure on this shared machine.
+ * the ratios, which hold better than either figure on this shared machine. Before them, the same
+ * load on the stack's own floor (stack-floor.server.ts: Express, helmet and express-session
+ * answering a small JSON object; no Nest, no database): no route of the api can beat it.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -182,6 +184,7 @@ async function main(): Promise<void> {
   const knex = createKnex(url, { min: 0, max: 2 });
   let api: ChildProcess | null = null;
   let uncached: ChildProcess | null = null;
+  let floor: ChildProcess | null = null;
   try {
     await migrateLatest(knex);
     // People: the engineer uploads, a checker raises, four more engineers get the flags, the manager watches.
@@ -332,6 +335,35 @@ async function main(): Promise<void> {
       latencies.sort((a, b) => a - b);
       return { result, apiMs, dbMs, p50: percentile(latencies, 50), p95: percentile(latencies, 95), p99: percentile(latencies, 99), rps: result.requests.total / result.duration };
     };
+    // The stack's own floor (stack-floor.server.ts): Express + helmet + express-session, no Nest, no database.
+    const floorPort = port + 2;
+    floor = spawn(process.execPath, [path.join(ROOT, 'node_modules', 'tsx', 'dist', 'cli.mjs'), path.join(__dirname, 'stack-floor.server.ts')], {
+      cwd: ROOT,
+      env: { PATH: process.env.PATH, NODE_ENV: 'production', PORT: String(floorPort) },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
+    await waitFor(`http://127.0.0.1:${floorPort}/floor`, floor, 30_000);
+    const floorSession = new Session(`http://127.0.0.1:${floorPort}`);
+    await floorSession.ok('GET', '/sign-in');
+    {
+      const opts = { url: `http://127.0.0.1:${floorPort}/floor`, connections, headers: { cookie: floorSession.cookieHeader, accept: 'application/json' } };
+      await autocannon({ ...opts, duration: 3 });
+      const latencies: number[] = [];
+      const before = treeCpuSeconds(floor.pid!);
+      const run = autocannon({ ...opts, duration: seconds });
+      run.on('response', (_c, _status, _bytes, ms) => latencies.push(ms));
+      const result = await run;
+      const after = treeCpuSeconds(floor.pid!);
+      latencies.sort((a, b) => a - b);
+      const cpuMs = before === null || after === null ? NaN : ((after - before) * 1000) / Math.max(1, result.requests.total);
+      const f = (ms: number) => `${ms.toFixed(1)} ms`;
+      const p95 = percentile(latencies, 95);
+      say(
+        `| Stack floor: Express + helmet + express-session, small JSON, no Nest, no database | one process | ${f(percentile(latencies, 50))} | ${f(p95)}${p95 <= 50 ? '' : ' (over 50)'} | ${f(percentile(latencies, 99))} | ${(result.requests.total / result.duration).toFixed(0)} | ${result.non2xx + result.errors + result.timeouts} | ${cpuMs.toFixed(2)} ms | ${(1000 / cpuMs).toFixed(0)} requests/s (one process) |`,
+      );
+    }
+    floor.kill('SIGTERM');
+    floor = null;
     for (const route of routes) {
       const probe = await manager.request('GET', route.path);
       if (probe.status !== 200) throw new Error(`GET ${route.path} → ${probe.status} ${JSON.stringify(probe.body).slice(0, 300)}`);
@@ -355,6 +387,7 @@ async function main(): Promise<void> {
   } finally {
     api?.kill('SIGTERM');
     uncached?.kill('SIGTERM');
+    floor?.kill('SIGTERM');
     await knex.destroy();
     if (!keep) await admin.raw(`drop database if exists "${dbName}" with (force)`);
     await admin.destroy();
