@@ -4,7 +4,8 @@ import type { MembersPage, ProjectOverview } from '@sagline/common/api-types';
 
 /**
  * Journey 3 in the browser: the demo manager reads the overview and assigns
- * a reviewer to a level; the demo checker raises a flag on a failing member
+ * a reviewer to a level, then one member a reviewer of its own on the Members
+ * screen (and back to the level's on the Member screen); the demo checker raises a flag on a failing member
  * of that level for the demo engineer, who finds the e-mail in the Mailbox
  * and answers; the checker closes it and signs the level off; the manager
  * sees the counts and the chart move, and prints the status report.
@@ -18,6 +19,8 @@ const MANAGER = { email: 'mireille.fontaine@halvercote.example', name: 'Mireille
 const CHECKER = { email: 'ines.okafor@halvercote.example', name: 'Ines Okafor' };
 const ENGINEER = { email: 'kasimir.oduya@halvercote.example', name: 'Kasimir Oduya' };
 const REVIEWER = 'Tomas Brandvik';
+/** A checker the manager gives one member of the level to, on the Members screen (then hands it back). */
+const OWN_REVIEWER = 'Priya Castellanos';
 const stamp = Date.now().toString(36);
 
 async function shot(page: Page, name: string) {
@@ -109,6 +112,53 @@ test('manager reads the overview and assigns a reviewer; a flag is raised, maile
   await manager.goBack();
   await expect(levels.locator('tbody tr.ant-table-row').first()).toBeVisible();
   await shot(manager, '02-reviewer-assigned');
+
+  // ---- On the Members screen the manager gives one failing member of the level a reviewer of its own;
+  // the table's Reviewer column and its Reviewer filter follow. Then, on the Member screen, the member
+  // goes back to its level's reviewer (so the demo data stays as it was).
+  const priyaId = (await json<{ candidates: { id: number; name: string }[] }>(manager, `${api}/reviewer-assignments`)).candidates.find((c) => c.name === OWN_REVIEWER)!.id;
+  await manager.goto(`${projectUrl}/members?level=${levelId}&verdict=fail&sort=-utilization&pageSize=100`);
+  const membersTable = manager.getByRole('table', { name: 'Members' });
+  const memberRow = () => membersTable.locator('tr.ant-table-row', { has: manager.getByRole('link', { name: member.mark, exact: true }) });
+  await expect(memberRow()).toContainText(REVIEWER);
+  await expect(manager.getByRole('button', { name: 'Assign reviewer to selected members' })).toBeDisabled();
+  await membersTable.getByRole('checkbox', { name: `Select ${member.mark}` }).check();
+  await manager.getByRole('button', { name: 'Assign reviewer to 1 selected member' }).click();
+  const assignDialog = manager.getByRole('dialog', { name: `Reviewer of ${member.mark}` });
+  await pick(manager, assignDialog.getByRole('combobox', { name: `Reviewer of ${member.mark}` }), new RegExp(`^${OWN_REVIEWER}$`));
+  await assignDialog.getByRole('button', { name: 'Assign' }).click();
+  await expect(manager.getByText(`${OWN_REVIEWER} now reviews ${member.mark}.`)).toBeVisible();
+  await expect(assignDialog).toBeHidden();
+  await expect(memberRow()).toContainText(OWN_REVIEWER);
+  await expect(membersTable.getByRole('checkbox', { name: `Select ${member.mark}` })).not.toBeChecked();
+  // Filtered by that reviewer (the filter's own select), the level's failing members are the one just assigned
+  // (and any the reviewer had already).
+  const hers = (await json<MembersPage>(manager, `${api}/members?level=${levelId}&verdict=fail&reviewer=${priyaId}&pageSize=100`)).items;
+  expect(hers.map((m) => m.mark)).toContain(member.mark);
+  await pick(manager, manager.getByRole('combobox', { name: 'Reviewer', exact: true }), new RegExp(`^${OWN_REVIEWER} · `));
+  await manager.keyboard.press('Escape');
+  await expect(manager).toHaveURL(new RegExp(`reviewer=${priyaId}`));
+  await expect(manager.getByText(`${hers.length} match the filters`)).toBeVisible();
+  await expect(membersTable.locator('tr.ant-table-row')).toHaveCount(hers.length);
+  await expect(memberRow()).toContainText(OWN_REVIEWER);
+  await shot(manager, '02b-member-reviewer');
+
+  // The Member screen says who reviews it, and hands it back to the level's reviewer.
+  await memberRow().getByRole('link', { name: member.mark, exact: true }).click();
+  await expect(manager.getByRole('heading', { name: member.mark })).toBeVisible();
+  const reviewerFact = manager.locator('.ant-descriptions-item-label', { hasText: /^Reviewer$/ }).locator('xpath=following-sibling::*[1]');
+  await expect(reviewerFact).toHaveText(OWN_REVIEWER);
+  await manager.getByRole('button', { name: 'Assign reviewer' }).click();
+  const backDialog = manager.getByRole('dialog', { name: `Reviewer of ${member.mark}` });
+  await expect(backDialog.getByRole('combobox', { name: `Reviewer of ${member.mark}` }).locator('xpath=ancestor::div[contains(@class,"ant-select")][1]')).toContainText(OWN_REVIEWER);
+  await pick(manager, backDialog.getByRole('combobox', { name: `Reviewer of ${member.mark}` }), /^Their level.s or the schedule.s reviewer$/);
+  await backDialog.getByRole('button', { name: 'Assign' }).click();
+  await expect(manager.getByText(`${member.mark} follows the level's or the schedule's reviewer again.`)).toBeVisible();
+  await expect(backDialog).toBeHidden();
+  await expect(reviewerFact).toHaveText(REVIEWER);
+  await shot(manager, '02c-member-back-to-level');
+  await manager.goto(`${projectUrl}/overview`);
+  await expect(levels.locator('tbody tr.ant-table-row').first()).toBeVisible();
 
   // ---- The checker raises a flag on a failing member of the level, for the engineer.
   const checker = await signedIn(browser, CHECKER.email);
