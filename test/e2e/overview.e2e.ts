@@ -143,11 +143,11 @@ test('manager reads the overview and assigns a reviewer; a flag is raised, maile
   await expect(memberRow()).toContainText(OWN_REVIEWER);
   await shot(manager, '02b-member-reviewer');
 
-  // The Member screen says who reviews it, and hands it back to the level's reviewer.
+  // The Member screen says who reviews it and why, and hands it back to the level's reviewer.
   await memberRow().getByRole('link', { name: member.mark, exact: true }).click();
   await expect(manager.getByRole('heading', { name: member.mark })).toBeVisible();
   const reviewerFact = manager.locator('.ant-descriptions-item-label', { hasText: /^Reviewer$/ }).locator('xpath=following-sibling::*[1]');
-  await expect(reviewerFact).toHaveText(OWN_REVIEWER);
+  await expect(reviewerFact).toHaveText(`${OWN_REVIEWER} (its own assignment)`);
   await manager.getByRole('button', { name: 'Assign reviewer' }).click();
   const backDialog = manager.getByRole('dialog', { name: `Reviewer of ${member.mark}` });
   await expect(backDialog.getByRole('combobox', { name: `Reviewer of ${member.mark}` }).locator('xpath=ancestor::div[contains(@class,"ant-select")][1]')).toContainText(OWN_REVIEWER);
@@ -155,7 +155,7 @@ test('manager reads the overview and assigns a reviewer; a flag is raised, maile
   await backDialog.getByRole('button', { name: 'Assign' }).click();
   await expect(manager.getByText(`${member.mark} follows the level's or the schedule's reviewer again.`)).toBeVisible();
   await expect(backDialog).toBeHidden();
-  await expect(reviewerFact).toHaveText(REVIEWER);
+  await expect(reviewerFact).toHaveText(`${REVIEWER} (assigned to ${levelName})`);
   await shot(manager, '02c-member-back-to-level');
   await manager.goto(`${projectUrl}/overview`);
   await expect(levels.locator('tbody tr.ant-table-row').first()).toBeVisible();

@@ -1,10 +1,24 @@
 import { Descriptions, Typography } from 'antd';
-import type { MemberDetail } from '@sagline/common/api-types';
+import type { MemberDetail, ReviewerAssignments } from '@sagline/common/api-types';
 import { Quantity } from '@/components/quantity';
 import { categoryLabel, materialLabel, spansText, supportsLabel } from './member-labels';
 
+/**
+ * Where the member's reviewer comes from (overview README: its own assignment beats its level's,
+ * which beats the schedule's column), for managers who change it. Null while unknown.
+ */
+export function reviewerSource(detail: MemberDetail, assignments: ReviewerAssignments | undefined): string | null {
+  const m = detail.member;
+  if (!assignments || !detail.isLatest || !m.reviewer) return null;
+  const own = assignments.members.find((a) => a.mark.toLowerCase() === m.mark.toLowerCase());
+  if (own && own.reviewer.id === m.reviewer.id) return 'its own assignment';
+  const level = assignments.levels.find((l) => l.level.id === m.level.id);
+  if (level?.reviewer && level.reviewer.id === m.reviewer.id) return `assigned to ${level.level.name}`;
+  return 'from the schedule';
+}
+
 /** What the schedule says about the member (in the project's units) and where in the file it came from. */
-export function MemberFacts({ detail }: { detail: MemberDetail }) {
+export function MemberFacts({ detail, reviewerFrom }: { detail: MemberDetail; reviewerFrom?: string | null }) {
   const m = detail.member;
   const system = detail.unitSystem;
   const none = <Typography.Text type="secondary">—</Typography.Text>;
@@ -38,7 +52,17 @@ export function MemberFacts({ detail }: { detail: MemberDetail }) {
         {
           key: 'reviewer',
           label: 'Reviewer',
-          children: m.reviewer?.name ?? (m.reviewerEmail ? `${m.reviewerEmail} (not on the team)` : none),
+          children: m.reviewer ? (
+            // One span: the item's content is a flex box, which would drop the space between two children.
+            <span>
+              {m.reviewer.name}
+              {reviewerFrom && <Typography.Text type="secondary"> ({reviewerFrom})</Typography.Text>}
+            </span>
+          ) : m.reviewerEmail ? (
+            `${m.reviewerEmail} (not on the team)`
+          ) : (
+            none
+          ),
         },
         { key: 'source', label: 'Schedule row', children: `Members sheet, row ${m.sourceRow}` },
         ...(m.notes ? [{ key: 'notes', label: 'Notes', children: m.notes, span: 'filled' as const }] : []),

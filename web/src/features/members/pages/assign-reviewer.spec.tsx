@@ -25,39 +25,52 @@ type Role = ProjectSummary['myRole'];
 const meOf = (role: Role) => (role === 'admin' ? admin : role === 'manager' ? manager : checker);
 
 /**
- * A small server: three members whose reviewers the PUT really changes, so a
- * list or member fetched after it shows the new reviewer (and one fetched
- * before it does not).
+ * A small server: three members whose reviewers the PUT really changes (a
+ * member's own reviewer, else its level's, else the schedule's, as the API
+ * does), so a list or member fetched after it shows the new reviewer and one
+ * fetched before it does not.
  */
-function reviewerServer(role: Role) {
+function reviewerServer(role: Role, { levelReviewer = null as FlagPerson | null } = {}) {
   const rows: MemberRow[] = [
     memberRow(),
     memberRow({ id: 9002, mark: 'L3-B13', grid: 'C/5-6', maxUtilization: 0.62, verdict: 'pass', requiredI: 50e-6, openFlagCount: 0 }),
     memberRow({ id: 9003, mark: 'L3-B14', grid: 'C/6-7', maxUtilization: 0.4, verdict: 'pass', requiredI: 40e-6, openFlagCount: 0 }),
   ];
   const people = [ILSE, NOOR];
+  const own = new Map<string, FlagPerson>();
+  const reviewerOf = (r: MemberRow) => own.get(r.mark) ?? levelReviewer ?? ILSE;
+  const current = () => rows.map((r) => ({ ...r, reviewer: reviewerOf(r) }));
   const api = stubFetch({
     'GET /api/auth/me': { body: { user: meOf(role) } },
     'GET /api/projects/7': { body: halvercote(role) },
     'GET /api/projects/7/revisions': { body: revisions },
     'GET /api/projects/7/members/facets': { body: facets },
-    'GET /api/projects/7/reviewer-assignments': { body: assignments },
+    'GET /api/projects/7/reviewer-assignments': () => ({
+      body: {
+        ...assignments,
+        levels: [{ level: { id: 102, name: 'L3' }, reviewer: levelReviewer }],
+        members: [...own].map(([mark, reviewer]) => ({ mark, reviewer })),
+      } satisfies ReviewerAssignments,
+    }),
     'GET /api/projects/7/overview': { body: {} },
     'GET /api/projects/7/flags': { body: { items: [], total: 0, page: 1, pageSize: 200 } },
     'GET /api/projects/7/members': (req) => {
       const reviewer = new URL(req.path, 'http://x').searchParams.get('reviewer');
-      const items = reviewer ? rows.filter((r) => String(r.reviewer?.id) === reviewer) : rows;
+      const items = current().filter((r) => !reviewer || String(r.reviewer.id) === reviewer);
       return { body: membersPage(items, { total: items.length }) };
     },
     'GET /api/projects/7/members/:mark': (_req, { mark }) => {
       const detail = memberDetail();
-      const row = rows.find((r) => r.mark === decodeURIComponent(mark))!;
+      const row = current().find((r) => r.mark === decodeURIComponent(mark))!;
       return { body: { ...detail, member: { ...detail.member, reviewer: row.reviewer } } };
     },
     'PUT /api/projects/7/reviewer-assignments/members': (req: StubRequest) => {
       const { marks, reviewerId } = req.body as { marks: string[]; reviewerId: number | null };
       const reviewer = people.find((p) => p.id === reviewerId) ?? null;
-      for (const r of rows) if (marks.includes(r.mark)) r.reviewer = reviewer;
+      for (const mark of marks) {
+        if (reviewer) own.set(mark, reviewer);
+        else own.delete(mark);
+      }
       return { body: { marks, reviewer } };
     },
   });
@@ -163,7 +176,7 @@ describe('Member: a manager assigns its reviewer', () => {
     const api = reviewerServer(role);
     const { user } = renderApp('/projects/7/members/L3-B12');
     expect(await screen.findByRole('heading', { name: 'L3-B12' })).toBeInTheDocument();
-    expect(reviewerFact()).toHaveTextContent('Ilse Varga');
+    await waitFor(() => expect(reviewerFact()).toHaveTextContent('Ilse Varga (from the schedule)'));
     const fetchedBefore = api.calls('GET /api/projects/7/members/:mark').length;
 
     await user.click(screen.getByRole('button', { name: /Assign reviewer/ }));
@@ -171,28 +184,39 @@ describe('Member: a manager assigns its reviewer', () => {
 
     expect(await screen.findByText('Noor Haddad now reviews L3-B12.')).toBeInTheDocument();
     expect(api.calls('PUT /api/projects/7/reviewer-assignments/members')[0].body).toEqual({ marks: ['L3-B12'], reviewerId: 8 });
-    await waitFor(() => expect(reviewerFact()).toHaveTextContent('Noor Haddad'));
+    await waitFor(() => expect(reviewerFact()).toHaveTextContent('Noor Haddad (its own assignment)'));
     expect(api.calls('GET /api/projects/7/members/:mark').length).toBeGreaterThan(fetchedBefore);
   });
 
-  it('the dialogue opens on the member’s own reviewer, and can hand it back to its level', async () => {
-    const api = reviewerServer('manager');
-    api.set({ 'GET /api/projects/7/reviewer-assignments': { body: { ...assignments, members: [{ mark: 'L3-B12', reviewer: ILSE }] } } });
+  it('the dialogue opens on the member’s own reviewer; handed back, the member shows its level’s', async () => {
+    const api = reviewerServer('manager', { levelReviewer: ILSE });
     const { user } = renderApp('/projects/7/members/L3-B12');
     await screen.findByRole('heading', { name: 'L3-B12' });
+    await waitFor(() => expect(reviewerFact()).toHaveTextContent('Ilse Varga (assigned to L3)'));
+
+    await user.click(screen.getByRole('button', { name: /Assign reviewer/ }));
+    await chooseReviewer(user, 'Reviewer of L3-B12', 'Noor Haddad');
+    await waitFor(() => expect(reviewerFact()).toHaveTextContent('Noor Haddad (its own assignment)'));
+
+    // Open again: the dialogue shows the member's own reviewer; the first choice takes it away.
     await user.click(screen.getByRole('button', { name: /Assign reviewer/ }));
     const select = (await screen.findByRole('combobox', { name: 'Reviewer of L3-B12' })).closest('.ant-select') as HTMLElement;
-    await waitFor(() => expect(select).toHaveTextContent('Ilse Varga'));
+    await waitFor(() => expect(select).toHaveTextContent('Noor Haddad'));
     await chooseReviewer(user, 'Reviewer of L3-B12', 'Their level’s or the schedule’s reviewer');
     expect(await screen.findByText("L3-B12 follows the level's or the schedule's reviewer again.")).toBeInTheDocument();
-    expect(api.calls('PUT /api/projects/7/reviewer-assignments/members')[0].body).toEqual({ marks: ['L3-B12'], reviewerId: null });
+    expect(api.calls('PUT /api/projects/7/reviewer-assignments/members').map((c) => c.body)).toEqual([
+      { marks: ['L3-B12'], reviewerId: 8 },
+      { marks: ['L3-B12'], reviewerId: null },
+    ]);
+    await waitFor(() => expect(reviewerFact()).toHaveTextContent('Ilse Varga (assigned to L3)'));
   });
 
   it.each(['checker', 'viewer'] as const)('a %s sees the reviewer but no assign button', async (role) => {
-    reviewerServer(role);
+    const api = reviewerServer(role);
     renderApp('/projects/7/members/L3-B12');
     await screen.findByRole('heading', { name: 'L3-B12' });
-    expect(reviewerFact()).toHaveTextContent('Ilse Varga');
+    expect(reviewerFact()).toHaveTextContent(/^Ilse Varga$/);
+    expect(api.calls('GET /api/projects/7/reviewer-assignments')).toHaveLength(0);
     expect(screen.queryByRole('button', { name: /Assign reviewer/ })).not.toBeInTheDocument();
   });
 });

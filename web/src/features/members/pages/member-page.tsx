@@ -13,13 +13,14 @@ import { RegionBoundary } from '@/components/region-boundary';
 import { UtilisationBar } from '@/components/utilisation-bar';
 import { VerdictTag } from '@/components/verdict-tag';
 import { MemberFlags } from '@/features/flags/components/member-flags';
+import { useReviewerAssignments } from '@/features/overview/api/get-reviewer-assignments';
 import { AssignReviewerButton } from '@/features/overview/components/assign-reviewer-button';
 import { useCurrentProject } from '@/lib/current-project';
 import { useMember } from '../api/get-member';
 import { ChecksTable, governingResult, resultKey } from '../components/checks-table';
 import { ContributionsTable } from '../components/contributions-table';
 import { MemberDrawing } from '../components/member-drawing-card';
-import { MemberFacts } from '../components/member-facts';
+import { MemberFacts, reviewerSource } from '../components/member-facts';
 import { MemberHistory } from '../components/member-history';
 import { categoryLabel } from '../components/member-labels';
 import { segmentName } from '../components/member-words';
@@ -92,6 +93,8 @@ function MemberView({ detail, back }: { detail: MemberDetail; back: ReactNode })
   const latest = detail.history.filter((h) => h.present).at(-1);
   // Managers and admins give the member a reviewer of its own (the latest revision's members only).
   const mayAssign = (project.myRole === 'manager' || project.myRole === 'admin') && detail.isLatest;
+  // …and see where its reviewer comes from (its own assignment, its level's, the schedule).
+  const assignments = useReviewerAssignments(project.id, mayAssign);
 
   return (
     <Flex vertical gap={16}>
@@ -145,7 +148,7 @@ function MemberView({ detail, back }: { detail: MemberDetail; back: ReactNode })
           ) : undefined
         }
       >
-        <MemberFacts detail={detail} />
+        <MemberFacts detail={detail} reviewerFrom={mayAssign ? reviewerSource(detail, assignments.data) : null} />
       </Card>
 
       <Card size="small" title="Drawing">
