@@ -70,6 +70,28 @@ describe('answers kept in memory follow every change', () => {
     expect(overview.totals.flagsOpen).toBe(1);
   });
 
+  it('a writing request moves the version itself: its answer is never followed by an older read, notification or not', async () => {
+    const version = t.app.get(DataVersion);
+    // Deaf to notifications for this test: only the api's own bump can refresh what it keeps.
+    const listener = (version as unknown as { client: { query(sql: string): Promise<unknown> } }).client;
+    await listener.query('UNLISTEN *');
+    try {
+      const before = (await managerC.get(`${base}/overview`)).body as ProjectOverview;
+      const level = before.levels.find((l) => l.level?.name === 'L1')!;
+      const flags = (await managerC.get(`${base}/flags?status=open`)).body as { items: { id: number; version: number }[] };
+      for (const f of flags.items) {
+        const closed = await checkerC.post(`${base}/flags/${f.id}/waive`, { version: f.version, reason: 'Agreed with the engineer of record.' });
+        expect(closed.status).toBe(200);
+      }
+      const signed = await checkerC.post(`${base}/levels/${level.level!.id}/sign-off`, {});
+      expect(signed.status).toBe(201);
+      const after = (await checkerC.get(`${base}/overview`)).body as ProjectOverview;
+      expect(after.levels.find((l) => l.level?.name === 'L1')!.signOff?.state).toBe('signed');
+    } finally {
+      await listener.query(`LISTEN sagline_data_changed`);
+    }
+  });
+
   it('shows a change written by another connection (another api process, psql, a job) once its notification arrives', async () => {
     const page = async () => (await managerC.get(`${base}/members?sort=mark`)).body as MembersPage;
     expect((await page()).items.map((m) => m.verdict)).toEqual(['fail', 'fail', 'pass']);
