@@ -6,7 +6,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { startCluster } from '../database/scripts/pg-cluster.mjs';
 import {
-  ROOT, build, ensureDebianPackage, ensureDependencies, log, run, startChild, waitForPort,
+  API_NODE_FLAGS, ROOT, build, ensureDebianPackage, ensureDependencies, log, run, startChild, waitForPort,
 } from '../database/scripts/stack.mjs';
 
 const TIERS = ['build', 'unit', 'api', 'web', 'e2e'];
@@ -68,7 +68,7 @@ async function e2eTier(cluster) {
   });
   stoppers.push(() => smtp.stop());
   await waitForPort(smtpPort);
-  const api = startChild('api', 'node', ['api/dist/main.js'], env);
+  const api = startChild('api', 'node', [...API_NODE_FLAGS, 'api/dist/main.js'], env);
   stoppers.push(() => api.stop());
   await waitForPort(port);
 

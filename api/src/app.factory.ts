@@ -75,7 +75,8 @@ export async function createApp(config: AppConfig, options: CreateAppOptions = {
     '/api',
     unlessPath('/health', [
       sessionMiddleware,
-      authenticator.initialize(),
+      // compat off: no legacy `req._passport` object on every request (passport 0.4 strategies are not used here).
+      authenticator.initialize({ compat: false }),
       authenticator.session(),
       csrfProtection({ secure: config.secureCookies }),
     ]),

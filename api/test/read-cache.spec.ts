@@ -1,4 +1,5 @@
-import type { FlagSummary, MembersPage, ProjectOverview } from '@sagline/common/api-types';
+import request from 'supertest';
+import { SESSION_COOKIE, type FlagSummary, type MembersPage, type ProjectOverview } from '@sagline/common/api-types';
 import { DataVersion } from '../src/db/data-version';
 import { ApiClient } from './support/api-client';
 import { Factories, PASSWORD, type TestProject, type TestUser } from './support/factories';
@@ -145,6 +146,19 @@ describe('answers kept in memory follow every change', () => {
     await t.knex('members').where({ mark: 'B2' }).update({ verdict: 'fail' });
     await t.settled();
     expect((await page()).items[1].verdict).toBe('fail');
+  });
+
+  it('a kept answer is sent as the same bytes with its ETag, and 304 to a client that has them', async () => {
+    const cookie = `${SESSION_COOKIE}=${managerC.cookie(SESSION_COOKIE)}`;
+    const first = await request(t.http).get(`${base}/overview`).set('Cookie', cookie);
+    const second = await request(t.http).get(`${base}/overview`).set('Cookie', cookie);
+    expect(first.status).toBe(200);
+    expect(first.headers['content-type']).toBe('application/json; charset=utf-8');
+    expect(second.text).toBe(first.text);
+    expect(second.headers.etag).toBe(first.headers.etag);
+    expect(first.headers.etag).toMatch(/^W\/"[0-9a-f]+-/);
+    const again = await request(t.http).get(`${base}/overview`).set('Cookie', cookie).set('If-None-Match', first.headers.etag);
+    expect(again.status).toBe(304);
   });
 
   it('a bad query is refused every time, also after the same good query was answered', async () => {

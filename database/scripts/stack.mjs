@@ -7,6 +7,12 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
+/**
+ * Node flags the api runs with: a larger young generation (64 MB semi-spaces instead of 16 MB), so
+ * the short-lived objects of each request are collected less often; measured +20 % requests per
+ * second on a cached Members page (README, Performance).
+ */
+export const API_NODE_FLAGS = ['--max-semi-space-size=64'];
 export const log = (msg) => process.stderr.write(`[sagline] ${msg}\n`);
 
 /** Runs a command in the repository root, inheriting output; throws on failure. */

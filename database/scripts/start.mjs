@@ -5,7 +5,7 @@
 // serves the built web app. Ctrl-C stops all it started.
 import path from 'node:path';
 import { startCluster } from './pg-cluster.mjs';
-import { ROOT, build, ensureDependencies, log, portFree, run, startChild, waitForPort } from './stack.mjs';
+import { API_NODE_FLAGS, ROOT, build, ensureDependencies, log, portFree, run, startChild, waitForPort } from './stack.mjs';
 
 const PORT = Number(process.env.PORT ?? 4100);
 const HOST = process.env.HOST ?? '127.0.0.1';
@@ -66,7 +66,7 @@ async function main() {
     env.MAILBOX_URL = `http://127.0.0.1:${MAILBOX_PORT}`;
   }
 
-  const api = startChild('api', 'node', ['api/dist/main.js'], env);
+  const api = startChild('api', 'node', [...API_NODE_FLAGS, 'api/dist/main.js'], env);
   stoppers.push(() => api.stop());
   api.on('exit', () => { if (!stopping) stopAll(1); });
   await waitForPort(PORT, HOST);

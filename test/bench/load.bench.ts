@@ -208,7 +208,8 @@ async function main(): Promise<void> {
     say(`api: node api/dist/main.js on 127.0.0.1:${port} (NODE_ENV=production, ${workers === 1 ? 'one process' : `API_WORKERS=${workers}: ${workers} processes`}), database ${dbName}`);
     const sessionSecret = randomBytes(48).toString('base64');
     const startApi = async (apiPort: number, readCache: 'on' | 'off'): Promise<ChildProcess> => {
-      const child = spawn(process.execPath, [mainJs], {
+      // As the start command runs it (API_NODE_FLAGS in database/scripts/stack.mjs).
+      const child = spawn(process.execPath, ['--max-semi-space-size=64', mainJs], {
         cwd: ROOT,
         env: {
           PATH: process.env.PATH,

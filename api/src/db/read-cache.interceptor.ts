@@ -13,7 +13,9 @@ const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
  *   version, so the writer's next read is never answered from an older
  *   entry, even before PostgreSQL's notification of the commit arrives;
  * - an answer that came from the read cache is sent as the JSON text made
- *   the first time it was sent (the same bytes), not serialised again.
+ *   the first time it was sent (the same bytes), not serialised again, with
+ *   the ETag made then (Express then neither hashes it again nor loses its
+ *   304 for a client that already has it).
  */
 @Injectable()
 export class ReadCacheInterceptor implements NestInterceptor {
@@ -30,10 +32,12 @@ export class ReadCacheInterceptor implements NestInterceptor {
     }
     return next.handle().pipe(
       map((body: unknown) => {
-        const json = this.cache.jsonOf(body);
-        if (json === undefined) return body;
-        http.getResponse<Response>().type('application/json');
-        return json;
+        const text = this.cache.textOf(body);
+        if (text === undefined) return body;
+        const res = http.getResponse<Response>();
+        res.type('application/json');
+        res.setHeader('ETag', text.etag);
+        return text.json;
       }),
     );
   }

@@ -1,4 +1,5 @@
 import { Injectable } from '@nestjs/common';
+import etag from 'etag';
 import { LRUCache } from 'lru-cache';
 import { DataVersion } from './data-version';
 
@@ -6,6 +7,12 @@ import { DataVersion } from './data-version';
 const MAX_ENTRIES = 2_000;
 
 type Loader = () => Promise<unknown>;
+
+/** A kept answer as sent: its JSON text and the weak ETag Express would compute for it. */
+export interface SentText {
+  json: string;
+  etag: string;
+}
 
 /**
  * Answers of read routes kept in memory while the data they came from is
@@ -22,8 +29,8 @@ export class ReadCache {
     fetchMethod: (_key, _stale, { context }) => context() as Promise<object>,
   });
 
-  /** The JSON text of each kept answer, made when it is first sent (ReadCacheInterceptor). */
-  private readonly texts = new WeakMap<object, string | null>();
+  /** The JSON text (and ETag) of each kept answer, made when it is first sent (ReadCacheInterceptor). */
+  private readonly texts = new WeakMap<object, SentText | null>();
 
   constructor(private readonly version: DataVersion) {}
 
@@ -36,13 +43,14 @@ export class ReadCache {
     return value;
   }
 
-  /** The JSON text of an answer this cache gave out (made once), or undefined for any other value. */
-  jsonOf(value: unknown): string | undefined {
+  /** The JSON text and ETag of an answer this cache gave out (made once), or undefined for any other value. */
+  textOf(value: unknown): SentText | undefined {
     if (value === null || typeof value !== 'object') return undefined;
     const text = this.texts.get(value);
     if (text === undefined) return undefined;
     if (text !== null) return text;
-    const made = JSON.stringify(value);
+    const json = JSON.stringify(value);
+    const made = { json, etag: etag(json, { weak: true }) };
     this.texts.set(value, made);
     return made;
   }
