@@ -3,8 +3,12 @@ import etag from 'etag';
 import { LRUCache } from 'lru-cache';
 import { DataVersion } from './data-version';
 
-/** Answers kept per process; old versions' entries are simply never asked for again and age out. */
+/**
+ * Answers kept per process, at most this many and this much JSON text (a Members page of 200 rows
+ * is about 80 kB); old versions' entries are simply never asked for again and age out first.
+ */
 const MAX_ENTRIES = 2_000;
+const MAX_TEXT_BYTES = 32 * 1024 * 1024;
 
 type Loader = () => Promise<unknown>;
 
@@ -26,11 +30,14 @@ export interface SentText {
 export class ReadCache {
   private readonly entries = new LRUCache<string, object, Loader>({
     max: MAX_ENTRIES,
+    maxSize: MAX_TEXT_BYTES,
+    // Measured by the JSON text the answer is sent as, made here once (ReadCacheInterceptor sends it).
+    sizeCalculation: (value) => Math.max(1, this.made(value).json.length),
     fetchMethod: (_key, _stale, { context }) => context() as Promise<object>,
   });
 
-  /** The JSON text (and ETag) of each kept answer, made when it is first sent (ReadCacheInterceptor). */
-  private readonly texts = new WeakMap<object, SentText | null>();
+  /** The JSON text (and ETag) of each kept answer, made once. */
+  private readonly texts = new WeakMap<object, SentText>();
 
   constructor(private readonly version: DataVersion) {}
 
@@ -38,21 +45,22 @@ export class ReadCache {
     const v = this.version.current();
     if (v === null) return load();
     const full = `${v}|${new Date().toISOString().slice(0, 10)}|${key}`;
-    const value = (await this.entries.fetch(full, { context: load })) as T;
-    if (value && !this.texts.has(value)) this.texts.set(value, null);
-    return value;
+    return (await this.entries.fetch(full, { context: load })) as T;
   }
 
-  /** The JSON text and ETag of an answer this cache gave out (made once), or undefined for any other value. */
+  /** The JSON text and ETag of an answer this cache gave out, or undefined for any other value. */
   textOf(value: unknown): SentText | undefined {
-    if (value === null || typeof value !== 'object') return undefined;
-    const text = this.texts.get(value);
-    if (text === undefined) return undefined;
-    if (text !== null) return text;
-    const json = JSON.stringify(value);
-    const made = { json, etag: etag(json, { weak: true }) };
-    this.texts.set(value, made);
-    return made;
+    return value !== null && typeof value === 'object' ? this.texts.get(value) : undefined;
+  }
+
+  private made(value: object): SentText {
+    let text = this.texts.get(value);
+    if (!text) {
+      const json = JSON.stringify(value);
+      text = { json, etag: etag(json, { weak: true }) };
+      this.texts.set(value, text);
+    }
+    return text;
   }
 
   /** Forgets everything (tests; a limit-set change also moves the version). */
