@@ -1,10 +1,9 @@
 import { Type } from 'class-transformer';
-import { IsInt, IsOptional, Max, Min } from 'class-validator';
+import { IsInt, IsOptional, Min } from 'class-validator';
 import { ACTIVITY_KINDS, ACTIVITY_LIMITS, type ActivityKind } from '@sagline/common/api-types';
+import { PageNumber, PageSize } from '../../common/paging.dto';
 import { SearchText, WordList } from '../../members/dto/list-params';
 import { CalendarDay } from './calendar-day';
-
-export const ACTIVITY_PAGE_SIZE_MAX = ACTIVITY_LIMITS.pageSizeMax;
 
 export class ListActivityQuery {
   @WordList(ACTIVITY_KINDS)
@@ -27,16 +26,9 @@ export class ListActivityQuery {
   @SearchText(ACTIVITY_LIMITS.qMax)
   q?: string;
 
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt({ message: 'must be a whole number (1 is the newest page)' })
-  @Min(1, { message: 'must be 1 or more' })
+  @PageNumber('the newest page')
   page: number = 1;
 
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt({ message: 'must be a whole number' })
-  @Min(1, { message: 'must be 1 or more' })
-  @Max(ACTIVITY_PAGE_SIZE_MAX, { message: `must be at most ${ACTIVITY_PAGE_SIZE_MAX}` })
+  @PageSize(ACTIVITY_LIMITS)
   pageSize: number = ACTIVITY_LIMITS.pageSizeDefault;
 }

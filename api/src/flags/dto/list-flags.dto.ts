@@ -1,6 +1,7 @@
-import { Transform, Type } from 'class-transformer';
-import { IsBoolean, IsIn, IsInt, IsOptional, Max, Min } from 'class-validator';
+import { Transform } from 'class-transformer';
+import { IsBoolean, IsIn, IsOptional } from 'class-validator';
 import { FLAG_LIMITS, FLAG_SORTS, FLAG_STATUSES, type FlagSort, type FlagStatus } from '@sagline/common/api-types';
+import { PageNumber, PageSize } from '../../common/paging.dto';
 import { IdList, SearchText, TextList, WordList } from '../../members/dto/list-params';
 
 export class ListFlagsQuery {
@@ -28,16 +29,9 @@ export class ListFlagsQuery {
   @IsIn(FLAG_SORTS, { message: `must be one of ${FLAG_SORTS.join(', ')}` })
   sort: FlagSort = '-updated';
 
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt({ message: 'must be a whole number (1 is the first page)' })
-  @Min(1, { message: 'must be 1 or more' })
+  @PageNumber()
   page: number = 1;
 
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt({ message: 'must be a whole number' })
-  @Min(1, { message: 'must be 1 or more' })
-  @Max(FLAG_LIMITS.pageSizeMax, { message: `must be at most ${FLAG_LIMITS.pageSizeMax}` })
+  @PageSize(FLAG_LIMITS)
   pageSize: number = FLAG_LIMITS.pageSizeDefault;
 }

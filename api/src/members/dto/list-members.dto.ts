@@ -1,6 +1,6 @@
-import { Type } from 'class-transformer';
-import { IsIn, IsInt, IsOptional, Matches, Max, Min } from 'class-validator';
+import { IsIn, IsOptional, Matches } from 'class-validator';
 import { MEMBER_LIMITS, MEMBER_SORTS, type MemberSort } from '@sagline/common/api-types';
+import { PageNumber, PageSize } from '../../common/paging.dto';
 import { IdList, SearchText, TextList, Utilization, WordList } from './list-params';
 
 const VERDICTS = ['pass', 'fail', 'unchecked'] as const;
@@ -51,16 +51,9 @@ export class ListMembersQuery extends MemberFilterFields {
   @IsIn(MEMBER_SORTS, { message: `must be one of ${MEMBER_SORTS.join(', ')}` })
   sort: MemberSort = 'mark';
 
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt({ message: 'must be a whole number (1 is the first page)' })
-  @Min(1, { message: 'must be 1 or more' })
+  @PageNumber()
   page: number = 1;
 
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt({ message: 'must be a whole number' })
-  @Min(1, { message: 'must be 1 or more' })
-  @Max(MEMBER_LIMITS.pageSizeMax, { message: `must be at most ${MEMBER_LIMITS.pageSizeMax}` })
+  @PageSize(MEMBER_LIMITS)
   pageSize: number = MEMBER_LIMITS.pageSizeDefault;
 }
