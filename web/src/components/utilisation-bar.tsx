@@ -24,14 +24,38 @@ export function utilisationWords(value: number): string {
  * A member's utilisation (1 = at the limit) as a bar with a tick at the
  * limit and the number beside it. Colour repeats what the number and the
  * tick say; it never carries the meaning alone. Values beyond 1.5 fill the
- * bar and keep their number.
+ * bar and keep their number. `bar={false}` shows the number alone (the
+ * same number, colour and screen-reader words), for tables too narrow or
+ * too secondary for a bar, such as the Imports screen's diff.
  */
-export function UtilisationBar({ value, width = 96 }: { value: number | null; width?: number }) {
+export function UtilisationBar({ value, width = 96, bar = true }: { value: number | null; width?: number; bar?: boolean }) {
   if (value === null || !Number.isFinite(value)) {
     return (
       <Typography.Text type="secondary" aria-label="no check applies">
         —
       </Typography.Text>
+    );
+  }
+  const words = utilisationWords(value);
+  const number = (
+    <span
+      aria-hidden
+      style={{
+        fontVariantNumeric: 'tabular-nums',
+        minWidth: 34,
+        textAlign: 'right',
+        color: value > 1 ? palette.fail : undefined,
+        fontWeight: value > 1 ? 600 : undefined,
+      }}
+    >
+      {value.toFixed(2)}
+    </span>
+  );
+  if (!bar) {
+    return (
+      <span role="img" aria-label={words} title={words} style={{ whiteSpace: 'nowrap' }} data-testid="utilisation-number">
+        {number}
+      </span>
     );
   }
   const fill = Math.max(0, Math.min(value, BAR_SCALE)) / BAR_SCALE;
@@ -40,8 +64,8 @@ export function UtilisationBar({ value, width = 96 }: { value: number | null; wi
   return (
     <span
       role="img"
-      aria-label={utilisationWords(value)}
-      title={utilisationWords(value)}
+      aria-label={words}
+      title={words}
       style={{ display: 'inline-flex', alignItems: 'center', gap: 8, whiteSpace: 'nowrap' }}
       data-testid="utilisation-bar"
     >
@@ -64,18 +88,7 @@ export function UtilisationBar({ value, width = 96 }: { value: number | null; wi
           style={{ position: 'absolute', left: `${limitAt}%`, top: -3, bottom: -3, width: 1, background: palette.ink }}
         />
       </span>
-      <span
-        aria-hidden
-        style={{
-          fontVariantNumeric: 'tabular-nums',
-          minWidth: 34,
-          textAlign: 'right',
-          color: value > 1 ? palette.fail : undefined,
-          fontWeight: value > 1 ? 600 : undefined,
-        }}
-      >
-        {value.toFixed(2)}
-      </span>
+      {number}
     </span>
   );
 }

@@ -1,6 +1,7 @@
 import { Alert, Flex, Table, Tabs, Typography } from 'antd';
 import type { ImportChangedMember, ImportDiff as Diff, ImportMemberRef, ImportVerdictFlip, Verdict } from '@sagline/common/api-types';
-import { Utilisation, VerdictTag } from './verdict-tag';
+import { UtilisationBar } from '@/components/utilisation-bar';
+import { VerdictTag } from '@/components/verdict-tag';
 
 const VERDICT_WORD: Record<Verdict, string> = { pass: 'Pass', fail: 'Fail' };
 
@@ -33,7 +34,7 @@ function MemberTable({ members, label, empty }: { members: ImportMemberRef[]; la
           dataIndex: 'maxUtilization',
           width: 110,
           align: 'right',
-          render: (_v, m) => <Utilisation value={m.maxUtilization} />,
+          render: (_v, m) => <UtilisationBar value={m.maxUtilization} bar={false} />,
         },
       ]}
     />
@@ -104,7 +105,7 @@ function FlipsTable({ flips }: { flips: ImportVerdictFlip[] }) {
           dataIndex: 'maxUtilization',
           width: 110,
           align: 'right',
-          render: (_v, f) => <Utilisation value={f.maxUtilization} />,
+          render: (_v, f) => <UtilisationBar value={f.maxUtilization} bar={false} />,
         },
       ]}
     />

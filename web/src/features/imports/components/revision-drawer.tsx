@@ -1,12 +1,12 @@
 import { Descriptions, Drawer, Flex, Spin, Table, Typography } from 'antd';
 import type { ImportVerdictFlip, RevisionSummary } from '@sagline/common/api-types';
 import { LoadError } from '@/components/load-error';
+import { UtilisationBar } from '@/components/utilisation-bar';
 import { formatDateTime } from '@/lib/format';
 import { useRevision } from '../api/get-revision';
 import { fileSizeText } from './file-size';
 import { FlipText } from './import-diff';
 import { ProblemsTable } from './problems-table';
-import { Utilisation } from './verdict-tag';
 
 /** An earlier (or the current) revision: its file, its diff counts, its flips and the warnings of its parse report. */
 export function RevisionDrawer({
@@ -63,7 +63,13 @@ export function RevisionDrawer({
                   { title: 'Mark', dataIndex: 'mark', width: 110 },
                   { title: 'Level', dataIndex: 'level', width: 80 },
                   { title: 'Verdict', key: 'flip', render: (_v, f) => <FlipText from={f.from} to={f.to} /> },
-                  { title: 'Utilisation', key: 'u', width: 100, align: 'right', render: (_v, f) => <Utilisation value={f.maxUtilization} /> },
+                  {
+                    title: 'Utilisation',
+                    key: 'u',
+                    width: 100,
+                    align: 'right',
+                    render: (_v, f) => <UtilisationBar value={f.maxUtilization} bar={false} />,
+                  },
                 ]}
               />
             </section>

@@ -126,11 +126,18 @@ describe('Imports', () => {
     const flip = within(flips).getByText('L1-B03').closest('tr') as HTMLElement;
     expect(within(flip).getByText('Pass → Fail (now fails)')).toBeInTheDocument();
     expect(within(flip).getByText('L/240 total')).toBeInTheDocument();
+    // The utilisation as a number alone (no bar here), with its words for a screen reader.
+    expect(within(flip).getByText('8.60')).toBeInTheDocument();
+    expect(within(flip).getByRole('img', { name: 'utilisation 8.60, over the limit' })).toBeInTheDocument();
+    expect(within(flip).queryByTestId('utilisation-bar')).not.toBeInTheDocument();
     expect(screen.getByRole('tab', { name: 'Verdicts that flip (1)' })).toBeInTheDocument();
 
     await user.click(screen.getByRole('tab', { name: 'Changed (1)' }));
     const changed = await screen.findByRole('table', { name: 'Changed members' });
     expect(within(changed).getByText(/186 ×10⁶ mm⁴ → 18\.6 ×10⁶ mm⁴/)).toBeInTheDocument();
+    const changedRow = within(changed).getByText('L1-B03').closest('tr') as HTMLElement;
+    expect(within(changedRow).getByText('Pass')).toBeInTheDocument();
+    expect(within(changedRow).getByText('Fail')).toBeInTheDocument();
 
     await user.type(screen.getByLabelText('Revision label (optional)'), 'Rev B, issued for permit');
     await user.click(screen.getByRole('button', { name: 'Commit as revision 2' }));
