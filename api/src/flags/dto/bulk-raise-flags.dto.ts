@@ -2,9 +2,9 @@ import { Transform, Type } from 'class-transformer';
 import { ArrayMaxSize, ArrayMinSize, IsArray, IsNotEmpty, IsObject, IsOptional, IsString, MaxLength, ValidateNested } from 'class-validator';
 import { FLAG_LIMITS, type BulkRaiseFlagsRequest } from '@sagline/common/api-types';
 import { MemberFilterFields } from '../../members/dto/list-members.dto';
-import { CheckName, DueDate, OptionalBody, PersonId, Title } from './flag-fields';
+import { RaiseFields } from './flag-fields';
 
-export class BulkRaiseFlagsDto implements BulkRaiseFlagsRequest {
+export class BulkRaiseFlagsDto extends RaiseFields implements BulkRaiseFlagsRequest {
   @IsOptional()
   @Transform(({ value }) => (Array.isArray(value) ? value.map((v) => (typeof v === 'string' ? v.trim() : v)) : value))
   @IsArray({ message: 'must be a list of marks, e.g. ["B12", "B14"]' })
@@ -20,19 +20,4 @@ export class BulkRaiseFlagsDto implements BulkRaiseFlagsRequest {
   @ValidateNested()
   @Type(() => MemberFilterFields)
   filter?: MemberFilterFields;
-
-  @CheckName()
-  checkName?: string | null;
-
-  @Title()
-  title?: string;
-
-  @OptionalBody()
-  comment?: string;
-
-  @PersonId()
-  assigneeId?: number | null;
-
-  @DueDate()
-  dueDate?: string | null;
 }

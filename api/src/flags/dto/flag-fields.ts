@@ -76,3 +76,21 @@ export const DueDate = () =>
     Matches(/^\d{4}-\d{2}-\d{2}$/, { message: 'must be a date written YYYY-MM-DD, e.g. 2026-12-18, or null' }),
     IsString({ message: 'must be a date written YYYY-MM-DD, e.g. 2026-12-18, or null' }),
   );
+
+/** What a raise says of the flags it makes, whether for one mark or many (RaiseFlagRequest, BulkRaiseFlagsRequest). */
+export class RaiseFields {
+  @CheckName()
+  checkName?: string | null;
+
+  @Title()
+  title?: string;
+
+  @OptionalBody()
+  comment?: string;
+
+  @PersonId()
+  assigneeId?: number | null;
+
+  @DueDate()
+  dueDate?: string | null;
+}

@@ -1,22 +1,7 @@
 import type { RaiseFlagRequest } from '@sagline/common/api-types';
-import { CheckName, DueDate, Mark, OptionalBody, PersonId, Title } from './flag-fields';
+import { Mark, RaiseFields } from './flag-fields';
 
-export class RaiseFlagDto implements RaiseFlagRequest {
+export class RaiseFlagDto extends RaiseFields implements RaiseFlagRequest {
   @Mark()
   mark: string;
-
-  @CheckName()
-  checkName?: string | null;
-
-  @Title()
-  title?: string;
-
-  @OptionalBody()
-  comment?: string;
-
-  @PersonId()
-  assigneeId?: number | null;
-
-  @DueDate()
-  dueDate?: string | null;
 }
