@@ -1,4 +1,5 @@
 import { Alert, Flex, Table, Tabs, Typography } from 'antd';
+import type { ColumnsType, ColumnType } from 'antd/es/table';
 import type { ImportChangedMember, ImportDiff as Diff, ImportMemberRef, ImportVerdictFlip, Verdict } from '@sagline/common/api-types';
 import { UtilisationBar } from '@/components/utilisation-bar';
 import { VerdictTag } from '@/components/verdict-tag';
@@ -15,27 +16,55 @@ export function FlipText({ from, to }: { from: Verdict; to: Verdict }) {
   );
 }
 
-function MemberTable({ members, label, empty }: { members: ImportMemberRef[]; label: string; empty: string }) {
+/**
+ * One of the diff's tables: small, keyed by mark, paged past 50 rows, Mark
+ * and Level first, then the table's own columns.
+ */
+function DiffTable<T extends { mark: string; level: string }>({
+  rows,
+  label,
+  empty,
+  columns,
+}: {
+  rows: T[];
+  label: string;
+  empty: string;
+  columns: ColumnsType<T>;
+}) {
   return (
-    <Table<ImportMemberRef>
+    <Table<T>
       aria-label={label}
       size="small"
       rowKey="mark"
-      dataSource={members}
-      pagination={members.length > 50 ? { pageSize: 50 } : false}
+      dataSource={rows}
+      pagination={rows.length > 50 ? { pageSize: 50 } : false}
       locale={{ emptyText: empty }}
+      columns={[{ title: 'Mark', dataIndex: 'mark', width: 120 }, { title: 'Level', dataIndex: 'level', width: 90 }, ...columns]}
+    />
+  );
+}
+
+/** The member's largest utilisation as a number (no bar in the diff). */
+function utilisationColumn<T extends { maxUtilization: number | null }>(): ColumnType<T> {
+  return {
+    title: 'Utilisation',
+    dataIndex: 'maxUtilization',
+    width: 110,
+    align: 'right',
+    render: (_v, r) => <UtilisationBar value={r.maxUtilization} bar={false} />,
+  };
+}
+
+function MemberTable({ members, label, empty }: { members: ImportMemberRef[]; label: string; empty: string }) {
+  return (
+    <DiffTable<ImportMemberRef>
+      rows={members}
+      label={label}
+      empty={empty}
       columns={[
-        { title: 'Mark', dataIndex: 'mark', width: 120 },
-        { title: 'Level', dataIndex: 'level', width: 90 },
         { title: 'Category', dataIndex: 'category' },
         { title: 'Verdict', dataIndex: 'verdict', width: 110, render: (_v, m) => <VerdictTag verdict={m.verdict} /> },
-        {
-          title: 'Utilisation',
-          dataIndex: 'maxUtilization',
-          width: 110,
-          align: 'right',
-          render: (_v, m) => <UtilisationBar value={m.maxUtilization} bar={false} />,
-        },
+        utilisationColumn<ImportMemberRef>(),
       ]}
     />
   );
@@ -43,16 +72,11 @@ function MemberTable({ members, label, empty }: { members: ImportMemberRef[]; la
 
 function ChangedTable({ members }: { members: ImportChangedMember[] }) {
   return (
-    <Table<ImportChangedMember>
-      aria-label="Changed members"
-      size="small"
-      rowKey="mark"
-      dataSource={members}
-      pagination={members.length > 50 ? { pageSize: 50 } : false}
-      locale={{ emptyText: 'No member changed.' }}
+    <DiffTable<ImportChangedMember>
+      rows={members}
+      label="Changed members"
+      empty="No member changed."
       columns={[
-        { title: 'Mark', dataIndex: 'mark', width: 120 },
-        { title: 'Level', dataIndex: 'level', width: 90 },
         {
           title: 'What changed',
           key: 'changes',
@@ -84,29 +108,18 @@ function ChangedTable({ members }: { members: ImportChangedMember[] }) {
 
 function FlipsTable({ flips }: { flips: ImportVerdictFlip[] }) {
   return (
-    <Table<ImportVerdictFlip>
-      aria-label="Verdicts that flip"
-      size="small"
-      rowKey="mark"
-      dataSource={flips}
-      pagination={flips.length > 50 ? { pageSize: 50 } : false}
-      locale={{ emptyText: 'No verdict flips.' }}
+    <DiffTable<ImportVerdictFlip>
+      rows={flips}
+      label="Verdicts that flip"
+      empty="No verdict flips."
       columns={[
-        { title: 'Mark', dataIndex: 'mark', width: 120 },
-        { title: 'Level', dataIndex: 'level', width: 90 },
         { title: 'Verdict', key: 'flip', width: 220, render: (_v, f) => <FlipText from={f.from} to={f.to} /> },
         {
           title: 'Governing check',
           dataIndex: 'governingCheck',
           render: (_v, f) => f.governingCheck ?? <Typography.Text type="secondary">—</Typography.Text>,
         },
-        {
-          title: 'Utilisation',
-          dataIndex: 'maxUtilization',
-          width: 110,
-          align: 'right',
-          render: (_v, f) => <UtilisationBar value={f.maxUtilization} bar={false} />,
-        },
+        utilisationColumn<ImportVerdictFlip>(),
       ]}
     />
   );

@@ -138,6 +138,8 @@ describe('Imports', () => {
     const changedRow = within(changed).getByText('L1-B03').closest('tr') as HTMLElement;
     expect(within(changedRow).getByText('Pass')).toBeInTheDocument();
     expect(within(changedRow).getByText('Fail')).toBeInTheDocument();
+    await user.click(screen.getByRole('tab', { name: 'Added (0)' }));
+    expect(await screen.findByText('No member added.')).toBeInTheDocument();
 
     await user.type(screen.getByLabelText('Revision label (optional)'), 'Rev B, issued for permit');
     await user.click(screen.getByRole('button', { name: 'Commit as revision 2' }));
