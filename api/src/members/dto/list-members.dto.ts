@@ -1,9 +1,14 @@
+import { applyDecorators } from '@nestjs/common';
 import { IsIn, IsOptional, Matches } from 'class-validator';
 import { MEMBER_LIMITS, MEMBER_SORTS, type MemberSort } from '@sagline/common/api-types';
 import { PageNumber, PageSize } from '../../common/paging.dto';
 import { IdList, SearchText, TextList, Utilization, WordList } from './list-params';
 
 const VERDICTS = ['pass', 'fail', 'unchecked'] as const;
+
+/** `?revision=`: "latest" (the default, on the field) or a revision id. */
+const Revision = () =>
+  applyDecorators(IsOptional(), Matches(/^(latest|[1-9]\d{0,9})$/, { message: 'must be "latest" or a revision id of this project' }));
 
 /** The Members filter (also the `filter` of a bulk flag raise, without revision, verdict, sort and paging). */
 export class MemberFilterFields {
@@ -34,14 +39,12 @@ export class MemberFilterFields {
 
 /** `?revision=` of the facets and the member detail. */
 export class RevisionQuery {
-  @IsOptional()
-  @Matches(/^(latest|[1-9]\d{0,9})$/, { message: 'must be "latest" or a revision id of this project' })
+  @Revision()
   revision: string = 'latest';
 }
 
 export class ListMembersQuery extends MemberFilterFields {
-  @IsOptional()
-  @Matches(/^(latest|[1-9]\d{0,9})$/, { message: 'must be "latest" or a revision id of this project' })
+  @Revision()
   revision: string = 'latest';
 
   @WordList(VERDICTS)
