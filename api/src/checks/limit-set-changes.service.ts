@@ -20,6 +20,9 @@ import { ActivityService } from '../activity/activity.service';
 import type { ProjectAccess } from '../auth/project-access';
 import { ApiError, notFound } from '../common/api-error';
 import { TransactionRunner, type Trx } from '../db/transaction';
+import type { LimitSetCause, RecomputedMemberFlip } from '../flags/flag-revision-notes';
+import { FlagsService } from '../flags/flags.service';
+import { OverviewRevisionHook } from '../overview/overview-revision-hook';
 import { JobQueue } from '../jobs/job-queue';
 import { RevisionsRepository } from '../revisions/revisions.repository';
 import { toPresetView, toProjectLimitSetView, toRecomputeJobStatus, toResultsState } from './checks.mapper';
@@ -55,6 +58,9 @@ export type ChangeOutcome = { kind: 'done'; response: LimitSetChangeResponse } |
 
 export type Progress = (fraction: number, step: string) => void;
 
+/** A member of the latest revision whose verdict the recompute changed, with its governing check under the new set. */
+type VerdictFlip = RecomputedMemberFlip & { level: string };
+
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
@@ -78,6 +84,8 @@ export class LimitSetChangesService {
     private readonly jobs: RecomputeJobsRepository,
     private readonly queue: JobQueue,
     private readonly settings: RecomputeSettings,
+    private readonly overviewHook: OverviewRevisionHook,
+    private readonly flags: FlagsService,
   ) {}
 
   // ------------------------------------------------------------------ reads
@@ -290,7 +298,16 @@ export class LimitSetChangesService {
         await this.repo.setActive(trx, projectId, change.setId);
       }
       const after = (await this.repo.findOwn(projectId, change.setId, trx))!;
-      const recompute = await this.recompute(trx, projectId, after, onProgress);
+      const recomputed = await this.recompute(trx, projectId, after, onProgress);
+      const recompute = recomputed?.summary ?? null;
+      if (recomputed && recomputed.flips.length) {
+        // What a flipped verdict means elsewhere, in this same transaction: notes on its flags, its level's sign-off voided.
+        onProgress(0.95, 'Noting flipped verdicts on flags and sign-offs');
+        const cause: LimitSetCause = { kind: change.kind === 'edit' ? 'edited' : 'applied', limitSetId: after.id, limitSetName: after.name, actorId };
+        const revision = { id: recomputed.summary.revisionId, number: recomputed.summary.revisionNumber };
+        await this.overviewHook.onResultsRecomputed(trx, projectId, revision, recomputed.flips, cause);
+        await this.flags.onResultsRecomputed(trx, projectId, revision, recomputed.flips, cause);
+      }
 
       onProgress(0.97, 'Recording the change');
       const results = recompute
@@ -335,9 +352,10 @@ export class LimitSetChangesService {
    * The latest revision's results under `row`: engine over every member
    * (the import's member-analysis), old results out, new ones in (the
    * import's COPY writer), members' verdicts and the revision's copy of the set
-   * and counts updated. Null when the project has no revision.
+   * and counts updated. Null when the project has no revision. `flips` lists
+   * every member whose verdict changed (the summary keeps the first 50).
    */
-  private async recompute(trx: Trx, projectId: number, row: LimitSetRow, onProgress: Progress): Promise<RecomputeSummary | null> {
+  private async recompute(trx: Trx, projectId: number, row: LimitSetRow, onProgress: Progress): Promise<{ summary: RecomputeSummary; flips: VerdictFlip[] } | null> {
     const latest = await this.repo.latestRevision(projectId, trx);
     if (!latest) return null;
     onProgress(0.05, 'Reading the members');
@@ -376,23 +394,22 @@ export class LimitSetChangesService {
     );
     await this.repo.updateRevisionResults(trx, latest.id, row.id, set, outcome.pass, outcome.fail);
 
-    const flipped: RecomputeSummary['flipped'] = [];
-    let flippedCount = 0;
+    const flips: VerdictFlip[] = [];
     stored.forEach((s, k) => {
-      const to = outcome.analyses[k].verdict;
-      if (s.verdict === to) return;
-      flippedCount++;
-      if (flipped.length < 50) flipped.push({ mark: s.member.mark, level: s.member.level, from: s.verdict, to });
+      const a = outcome.analyses[k];
+      if (s.verdict === a.verdict) return;
+      flips.push({ mark: s.member.mark, level: s.member.level, verdictBefore: s.verdict, verdictAfter: a.verdict, governingCheck: a.governingCheck, utilization: a.maxUtilization });
     });
-    return {
+    const summary: RecomputeSummary = {
       revisionId: latest.id,
       revisionNumber: latest.number,
       memberCount: total,
       before: { pass: latest.pass_count, fail: latest.fail_count },
       after: { pass: outcome.pass, fail: outcome.fail, unchecked: outcome.unchecked },
-      flipped,
-      flippedCount,
+      flipped: flips.slice(0, 50).map((f) => ({ mark: f.mark, level: f.level, from: f.verdictBefore, to: f.verdictAfter })),
+      flippedCount: flips.length,
     };
+    return { summary, flips };
   }
 
   private async actorName(actorId: number | null): Promise<string> {

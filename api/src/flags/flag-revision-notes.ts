@@ -49,3 +49,36 @@ export function mergeChanges(changes: readonly RevisionMemberChange[]): Map<stri
   }
   return byKey;
 }
+
+/** What changed the project's limit set: another set chosen, or the set in use edited. */
+export interface LimitSetCause {
+  kind: 'applied' | 'edited';
+  limitSetId: number;
+  limitSetName: string;
+  /** Who made the change (the manager); null when unknown. */
+  actorId: number | null;
+}
+
+/** A member of the latest revision whose verdict a recompute under a new limit set changed. */
+export interface RecomputedMemberFlip {
+  mark: string;
+  verdictBefore: Verdict | null;
+  verdictAfter: Verdict | null;
+  /** The governing check and its utilisation under the new set (null for an unchecked member). */
+  governingCheck: string | null;
+  utilization: number | null;
+}
+
+/** "Limit set changed to "X"" or "Limit set "X" edited": the first words of a recompute's notes. */
+export function limitSetChangeWords(cause: LimitSetCause): string {
+  return cause.kind === 'applied' ? `Limit set changed to "${cause.limitSetName}"` : `Limit set "${cause.limitSetName}" edited`;
+}
+
+/**
+ * The automatic note on a flag when a change of the limit set flipped its
+ * member's verdict: `Limit set changed to "X": verdict pass → fail (L/360 live 1.12)`.
+ */
+export function limitSetNote(cause: LimitSetCause, f: RecomputedMemberFlip): string {
+  const governing = f.governingCheck !== null && f.utilization !== null ? ` (${f.governingCheck} ${f.utilization.toFixed(2)})` : '';
+  return `${limitSetChangeWords(cause)}: verdict ${word(f.verdictBefore)} → ${word(f.verdictAfter)}${governing}`;
+}

@@ -15,7 +15,16 @@ import type { BulkRaiseFlagsDto } from './dto/bulk-raise-flags.dto';
 import type { ListFlagsQuery } from './dto/list-flags.dto';
 import type { RaiseFlagDto } from './dto/raise-flag.dto';
 import { flagAssignedMail, flagsAssignedMail, flagsRevisionMail, type FlagRef } from './flag-mails';
-import { mergeChanges, revisionNote, type RevisionMemberChange, type RevisionNotesResult } from './flag-revision-notes';
+import {
+  limitSetChangeWords,
+  limitSetNote,
+  mergeChanges,
+  revisionNote,
+  type LimitSetCause,
+  type RecomputedMemberFlip,
+  type RevisionMemberChange,
+  type RevisionNotesResult,
+} from './flag-revision-notes';
 import { defaultFlagTitle } from './flag-title';
 import { toFlag, toFlagDetail, toFlagSummary } from './flags.mapper';
 import { FlagsRepository, type FlagFilter, type FlagRow, type NewFlag, type PersonRow } from './flags.repository';
@@ -224,13 +233,12 @@ export class FlagsService {
       const change = byKey.get(f.mark.toLowerCase())!;
       return { flag: f, change, text: revisionNote(revision.number, change) };
     });
-    await this.flags.insertEvents(
+    const ids = await this.writeAutomaticNotes(
       trx,
+      projectId,
       notes.map((n) => ({
         flagId: n.flag.id,
-        actorId: null,
-        kind: 'revision' as const,
-        body: n.text,
+        text: n.text,
         data: {
           revisionId,
           revisionNumber: revision.number,
@@ -240,16 +248,8 @@ export class FlagsService {
           changedFields: n.change.changedFields ?? [],
         },
       })),
+      { actorId: null, summary: `Revision ${revision.number} changed or removed the members of ${notes.length} flag${notes.length === 1 ? '' : 's'}: ${preview([...new Set(notes.map((n) => n.flag.mark))])}`, data: { revisionId } },
     );
-    const ids = notes.map((n) => n.flag.id);
-    await this.flags.update(trx, ids, {});
-    await this.activity.record(trx, {
-      projectId,
-      actorId: null,
-      action: 'flag.revision_noted',
-      summary: `Revision ${revision.number} changed or removed the members of ${ids.length} flag${ids.length === 1 ? '' : 's'}: ${preview([...new Set(notes.map((n) => n.flag.mark))])}`,
-      data: { revisionId, flagIds: ids },
-    });
 
     const projectName = await this.flags.projectName(projectId, trx);
     const byAssignee = new Map<string, typeof notes>();
@@ -268,6 +268,65 @@ export class FlagsService {
       mailIds.push(await this.outbox.enqueue(trx, mail));
     }
     return { notedFlagIds: ids, mailIds };
+  }
+
+  /**
+   * Call inside the transaction of a recompute of the latest revision under a
+   * new limit set (LimitSetChangesService.applyChange, inline or as a job):
+   * every flag that is not closed, on a mark whose verdict flipped, gets an
+   * automatic `revision` event (`Limit set changed to "X": verdict pass → fail
+   * (L/360 live 1.12)`, data.cause 'limit_set'), its version moves on, and one
+   * `flag.revision_noted` activity entry sums it up. No e-mail: the change's
+   * own activity entry names the flipped marks. Returns the flags noted.
+   */
+  async onResultsRecomputed(trx: Trx, projectId: number, revision: { id: number; number: number }, flips: readonly RecomputedMemberFlip[], cause: LimitSetCause): Promise<number[]> {
+    const byKey = new Map<string, RecomputedMemberFlip>();
+    for (const f of flips) if (f.verdictBefore !== f.verdictAfter) byKey.set(f.mark.trim().toLowerCase(), f);
+    if (byKey.size === 0) return [];
+    const flagged = await this.flags.openOrWaivedFor(trx, projectId, [...byKey.keys()]);
+    if (flagged.length === 0) return [];
+    const notes = flagged.map((flag) => ({ flag, flip: byKey.get(flag.mark.toLowerCase())! }));
+    return this.writeAutomaticNotes(
+      trx,
+      projectId,
+      notes.map(({ flag, flip }) => ({
+        flagId: flag.id,
+        text: limitSetNote(cause, flip),
+        data: {
+          cause: 'limit_set',
+          limitSetId: cause.limitSetId,
+          limitSetName: cause.limitSetName,
+          changedBy: cause.actorId,
+          revisionId: revision.id,
+          revisionNumber: revision.number,
+          verdictBefore: flip.verdictBefore,
+          verdictAfter: flip.verdictAfter,
+          governingCheck: flip.governingCheck,
+          utilization: flip.utilization,
+          removed: false,
+          changedFields: [],
+        },
+      })),
+      {
+        actorId: null,
+        summary: `${limitSetChangeWords(cause)}: verdicts flipped on the members of ${notes.length} flag${notes.length === 1 ? '' : 's'}: ${preview([...new Set(notes.map((n) => n.flag.mark))])}`,
+        data: { revisionId: revision.id, limitSetId: cause.limitSetId },
+      },
+    );
+  }
+
+  /** Automatic `revision` events on flags, their versions moved on, one activity entry; returns the flag ids. */
+  private async writeAutomaticNotes(
+    trx: Trx,
+    projectId: number,
+    notes: { flagId: number; text: string; data: Record<string, unknown> }[],
+    entry: { actorId: number | null; summary: string; data: Record<string, unknown> },
+  ): Promise<number[]> {
+    await this.flags.insertEvents(trx, notes.map((n) => ({ flagId: n.flagId, actorId: null, kind: 'revision' as const, body: n.text, data: n.data })));
+    const ids = notes.map((n) => n.flagId);
+    await this.flags.update(trx, ids, {});
+    await this.activity.record(trx, { projectId, actorId: entry.actorId, action: 'flag.revision_noted', summary: entry.summary, data: { ...entry.data, flagIds: ids } });
+    return ids;
   }
 
   /** After the commit of the transaction onRevisionCommitted ran in: send its e-mails now. */

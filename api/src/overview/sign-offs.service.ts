@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import type { ImportDiff, LevelSignOff } from '@sagline/common/api-types';
+import type { ImportDiff, LevelSignOff, Verdict } from '@sagline/common/api-types';
 import { ActivityService } from '../activity/activity.service';
 import type { ProjectAccess } from '../auth/project-access';
 import type { SessionUser } from '../auth/session-user';
@@ -13,7 +13,8 @@ import { SignOffsRepository } from './sign-offs.repository';
 /** How a member of a new revision touches a level. */
 interface LevelTouch {
   mark: string;
-  how: 'added' | 'removed' | 'changed' | 'verdict flipped';
+  /** 'added', 'removed', 'changed', 'verdict flipped', or "pass → fail" for a recompute. */
+  how: string;
 }
 
 /**
@@ -123,20 +124,68 @@ export class SignOffsService {
     for (const f of diff.flips) touch(f.level, { mark: f.mark, how: 'verdict flipped' });
     if (touches.size === 0) return [];
 
+    return this.voidLevels(trx, projectId, touches, {
+      reason: (level, shown) => `Revision ${revision.number} changed members on ${level}: ${shown}`,
+      revisionId: revision.id,
+      by: null,
+      data: { revisionId: revision.id, revisionNumber: revision.number },
+    });
+  }
+
+  /**
+   * Inside the transaction of a recompute of the latest revision under a new
+   * limit set (inline or as a job): every live sign-off of a level on which a
+   * member's verdict flipped is voided, "The limit set changed to "X"
+   * (verdicts flipped on L2: C3 (pass → fail), C1 (fail → pass))", by the
+   * person who changed the set, with a `sign_off.voided` activity entry.
+   * `voidedInRevisionNumber` stays null: no revision changed the members.
+   * Returns the levels voided.
+   */
+  async voidFlippedLevels(
+    trx: Trx,
+    projectId: number,
+    revision: { id: number; number: number },
+    flips: readonly { mark: string; level: string | null; verdictBefore: Verdict | null; verdictAfter: Verdict | null }[],
+    cause: { kind: 'applied' | 'edited'; limitSetId: number; limitSetName: string; actorId: number | null },
+  ): Promise<string[]> {
+    const touches = new Map<string, LevelTouch[]>();
+    const word = (v: Verdict | null) => v ?? 'unchecked';
+    for (const f of flips) {
+      if (f.verdictBefore === f.verdictAfter || !f.level) continue;
+      const key = f.level.toLowerCase();
+      touches.set(key, [...(touches.get(key) ?? []), { mark: f.mark, how: `${word(f.verdictBefore)} → ${word(f.verdictAfter)}` }]);
+    }
+    if (touches.size === 0) return [];
+    const what = cause.kind === 'applied' ? `The limit set changed to "${cause.limitSetName}"` : `The limit set "${cause.limitSetName}" was edited`;
+    return this.voidLevels(trx, projectId, touches, {
+      reason: (level, shown) => `${what} (verdicts flipped on ${level}: ${shown})`,
+      revisionId: null,
+      by: cause.actorId,
+      data: { revisionId: revision.id, revisionNumber: revision.number, limitSetId: cause.limitSetId, limitSetName: cause.limitSetName },
+    });
+  }
+
+  /** Voids the live sign-offs of the touched levels (by lower-case name), each with its reason and activity entry. */
+  private async voidLevels(
+    trx: Trx,
+    projectId: number,
+    touches: Map<string, LevelTouch[]>,
+    v: { reason: (level: string, shown: string) => string; revisionId: number | null; by: number | null; data: Record<string, unknown> },
+  ): Promise<string[]> {
     const ids = await this.repo.levelIdsByName(trx, projectId);
     const levelIds = [...touches.keys()].map((k) => ids.get(k)).filter((id): id is number => id !== undefined);
     const live = await this.repo.liveOnLevels(trx, projectId, levelIds);
     for (const s of live) {
       const list = touches.get(s.level_name.toLowerCase()) ?? [];
-      const shown = list.slice(0, 8).map((t) => `${t.mark} (${t.how})`).join(', ');
-      const reason = `Revision ${revision.number} changed members on ${s.level_name}: ${shown}${list.length > 8 ? ` and ${list.length - 8} more` : ''}`;
-      await this.repo.void(trx, s.id, { reason, revisionId: revision.id, by: null });
+      const shown = list.slice(0, 8).map((t) => `${t.mark} (${t.how})`).join(', ') + (list.length > 8 ? ` and ${list.length - 8} more` : '');
+      const reason = v.reason(s.level_name, shown);
+      await this.repo.void(trx, s.id, { reason, revisionId: v.revisionId, by: v.by });
       await this.activity.record(trx, {
         projectId,
-        actorId: null,
+        actorId: v.by,
         action: 'sign_off.voided',
         summary: `The sign-off of ${s.level_name} no longer holds: ${reason}`,
-        data: { levelId: s.level_id, levelName: s.level_name, revisionId: revision.id, revisionNumber: revision.number, marks: list.map((t) => t.mark), signOffId: s.id },
+        data: { levelId: s.level_id, levelName: s.level_name, ...v.data, marks: list.map((t) => t.mark), signOffId: s.id },
       });
     }
     return live.map((s) => s.level_name);
