@@ -153,7 +153,9 @@ export class SignOffsService {
     for (const f of flips) {
       if (f.verdictBefore === f.verdictAfter || !f.level) continue;
       const key = f.level.toLowerCase();
-      touches.set(key, [...(touches.get(key) ?? []), { mark: f.mark, how: `${word(f.verdictBefore)} → ${word(f.verdictAfter)}` }]);
+      const list = touches.get(key) ?? [];
+      list.push({ mark: f.mark, how: `${word(f.verdictBefore)} → ${word(f.verdictAfter)}` });
+      touches.set(key, list);
     }
     if (touches.size === 0) return [];
     const what = cause.kind === 'applied' ? `The limit set changed to "${cause.limitSetName}"` : `The limit set "${cause.limitSetName}" was edited`;
