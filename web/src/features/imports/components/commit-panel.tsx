@@ -1,14 +1,24 @@
-import { useState } from 'react';
+import { useCallback, useState } from 'react';
 import { Alert, Button, Flex, Form, Input, Popconfirm, Typography } from 'antd';
-import { IMPORT_LIMITS, type ImportPreview, type RevisionSummary } from '@sagline/common/api-types';
+import { IMPORT_LIMITS, type ImportJobStatus, type ImportPreview, type RevisionSummary } from '@sagline/common/api-types';
 import { errorMessage, isApiError } from '@/app/api-error';
+import { JobProgress, type JobProgressWords } from '@/components/job-progress';
 import { formatDateTime } from '@/lib/format';
 import { isJobAccepted, useCommitImport } from '../api/commit-import';
-import { JobProgress } from './job-progress';
+import { useImportJob } from '../api/get-import-job';
 
 interface CommitValues {
   label?: string;
 }
+
+const COMMIT_JOB_WORDS: JobProgressWords = {
+  what: 'the progress of the commit',
+  barLabel: 'Commit progress',
+  running: (step) => step ?? 'Committing…',
+  completed: 'Committed.',
+  failedTitle: 'The commit did not finish; nothing was stored',
+  failedFallback: 'The background job failed. Upload the schedule again.',
+};
 
 /**
  * Commit the draft as the next revision (with an optional label) or discard
@@ -32,6 +42,14 @@ export function CommitPanel({
   const [jobId, setJobId] = useState<string | null>(null);
   const [problem, setProblem] = useState<string | null>(null);
   const next = (preview.diff.against?.number ?? 0) + 1;
+  // A background commit (202): polled about once a second until it completes or fails.
+  const commitJob = useImportJob(projectId, jobId);
+  const jobCompleted = useCallback(
+    (done: ImportJobStatus) => {
+      if (done.result?.revision) onCommitted(done.result.revision);
+    },
+    [onCommitted],
+  );
 
   const commit = async (values: CommitValues) => {
     setProblem(null);
@@ -49,7 +67,20 @@ export function CommitPanel({
     }
   };
 
-  if (jobId) return <JobProgress projectId={projectId} jobId={jobId} onDone={onCommitted} />;
+  if (jobId) {
+    return (
+      <JobProgress
+        poll={commitJob}
+        words={COMMIT_JOB_WORDS}
+        onCompleted={jobCompleted}
+        note={
+          commitJob.data && commitJob.data.attempts > 1 && (
+            <Typography.Text type="secondary">Started again after an interruption (attempt {commitJob.data.attempts}).</Typography.Text>
+          )
+        }
+      />
+    );
+  }
 
   return (
     <Form

@@ -200,6 +200,36 @@ describe('Imports', () => {
     expect(within(newest).getByText('Current')).toBeInTheDocument();
   });
 
+  it('shows a queued commit waiting, a restarted one with its attempt, and a failed one with its message', async () => {
+    let polls = 0;
+    importsApi(engineer, 'manager', {
+      'POST /api/projects/7/imports': { status: 201, body: preview },
+      'POST /api/projects/7/imports/:draftId/commit': { status: 202, body: { jobId: 'job-5' } },
+      'GET /api/projects/7/imports/jobs/:jobId': () => {
+        polls += 1;
+        if (polls === 1) return { body: job({ state: 'queued', progress: 0, step: null }) };
+        if (polls === 2) return { body: job({ step: null, progress: 0.1, attempts: 2 }) };
+        return {
+          body: job({ state: 'failed', attempts: 2, error: { statusCode: 409, code: 'CONFLICT', message: 'The limit set changed while the commit ran. Upload the file again.' } }),
+        };
+      },
+    });
+    const { user } = renderApp('/projects/7/imports');
+    await user.upload(await fileInput(), xlsx());
+    await user.click(await screen.findByRole('button', { name: 'Commit as revision 2' }));
+
+    expect(await screen.findByText('Waiting for its turn…', {}, { timeout: 4000 })).toBeInTheDocument();
+    expect(screen.getByRole('progressbar', { name: 'Commit progress' })).toHaveAttribute('aria-valuenow', '0');
+    expect(await screen.findByText('Committing…', {}, { timeout: 4000 })).toBeInTheDocument();
+    expect(screen.getByRole('progressbar', { name: 'Commit progress' })).toHaveAttribute('aria-valuenow', '10');
+    expect(screen.getByText('Started again after an interruption (attempt 2).')).toBeInTheDocument();
+
+    expect(await screen.findByText('The commit did not finish; nothing was stored', {}, { timeout: 4000 })).toBeInTheDocument();
+    expect(screen.getByText('The limit set changed while the commit ran. Upload the file again.')).toBeInTheDocument();
+    expect(screen.queryByRole('progressbar', { name: 'Commit progress' })).not.toBeInTheDocument();
+    expect(screen.queryByText(/Revision 2 committed/)).not.toBeInTheDocument();
+  });
+
   it('shows a viewer the revisions read-only: no upload area, downloads and the parse report', async () => {
     importsApi(viewer, 'viewer');
     const { user } = renderApp('/projects/7/imports');

@@ -142,6 +142,33 @@ describe('Limit sets', () => {
     await waitFor(() => expect(api.calls('GET /api/projects/7/limit-sets').length).toBeGreaterThan(1));
   });
 
+  it('follows a change already running when the page opens, and says so when it fails', async () => {
+    let polls = 0;
+    const jobId = '0b6d2a7e-5c1f-4e8a-9d3b-7f2e1c4a5b60';
+    const base = { jobId, kind: 'edit', limitSetId: 12, attempts: 1, createdAt: '2026-12-02T10:00:00Z', updatedAt: '2026-12-02T10:00:01Z' };
+    const api = limitSetsApi(manager, 'manager', true, {
+      'GET /api/projects/7/limit-sets': { body: { ...overview(true), openJob: { ...base, state: 'queued', progress: 0, step: null } } },
+      'GET /api/projects/7/limit-sets/jobs/:jobId': () => {
+        polls++;
+        if (polls === 1) return { body: { ...base, state: 'queued', progress: 0, step: null } };
+        return { body: { ...base, state: 'failed', progress: 0.2, step: null, error: { statusCode: 500, code: 'INTERNAL', message: 'The recompute stopped at member B12.' } } };
+      },
+    });
+    renderApp('/projects/7/limit-sets');
+
+    expect(await screen.findByText('Waiting for its turn…', {}, { timeout: 4000 })).toBeInTheDocument();
+    expect(screen.getByRole('progressbar', { name: 'Recompute progress' })).toHaveAttribute('aria-valuenow', '0');
+    expect(screen.getByText('The verdicts on every screen change all at once when it completes; until then they follow the set as it was.')).toBeInTheDocument();
+
+    expect(await screen.findByText('The change was not applied; nothing was stored', {}, { timeout: 4000 })).toBeInTheDocument();
+    // Said in the failed card and again in a message.
+    expect((await screen.findAllByText('The recompute stopped at member B12.')).length).toBeGreaterThanOrEqual(1);
+    expect(screen.queryByRole('progressbar', { name: 'Recompute progress' })).not.toBeInTheDocument();
+    expect(api.calls('GET /api/projects/7/limit-sets/jobs/:jobId')[0].path).toBe(`/api/projects/7/limit-sets/jobs/${jobId}`);
+    // The page reloads the sets after a failure.
+    await waitFor(() => expect(api.calls('GET /api/projects/7/limit-sets').length).toBeGreaterThan(1));
+  });
+
   it('copies a preset into the project and opens it for editing', async () => {
     setCsrfCookie('csrf-7');
     const copy = { ...stricterSet, id: 13, name: 'IBC 2021 (Table 1604.3, glass, masonry) (project copy)', version: 1 };

@@ -14,19 +14,29 @@ import { Link } from 'react-router-dom';
 import { errorMessage } from '@/app/api-error';
 import { paths } from '@/app/paths';
 import { CautionNote } from '@/components/caution-note';
+import { JobProgress, type JobProgressWords } from '@/components/job-progress';
 import { LoadError } from '@/components/load-error';
 import { PageLoading } from '@/components/page-loading';
 import { useCurrentProject } from '@/lib/current-project';
 import { applyLimitSet } from '../api/apply-limit-set';
 import { copyLimitSet } from '../api/copy-limit-set';
+import { useLimitSetJob } from '../api/get-limit-set-job';
 import { useLimitSets } from '../api/get-limit-sets';
 import { isLimitSetJob, updateLimitSet, type LimitSetChangeOutcome } from '../api/update-limit-set';
-import { RecomputeProgress } from '../components/recompute-progress';
 import { RulesEditor } from '../components/rules-editor';
 import { RulesTable } from '../components/rules-table';
 
 /** Flipped members named in the notice after a change; the Members screen lists them all. */
 const FLIPS_SHOWN = 10;
+
+const RECOMPUTE_JOB_WORDS: JobProgressWords = {
+  what: 'the progress of the recompute',
+  barLabel: 'Recompute progress',
+  running: (step) => `Recomputing the results: ${step ?? 'starting'}…`,
+  completed: 'Recomputed.',
+  failedTitle: 'The change was not applied; nothing was stored',
+  failedFallback: 'The background job failed. Try again.',
+};
 
 /** What the last change did, shown until dismissed. */
 interface Done {
@@ -51,6 +61,9 @@ export function LimitSetsPage() {
   const [jobId, setJobId] = useState<string | null>(null);
   const [done, setDone] = useState<Done | null>(null);
   const [presetId, setPresetId] = useState<string | null>(null);
+  // A change of the set in use on a large project runs as a background job, polled about once a second.
+  const runningJob = jobId ?? data?.openJob?.jobId ?? null;
+  const recomputeJob = useLimitSetJob(project.id, runningJob);
 
   const confirm = (title: string, content: ReactNode, okText: string) =>
     new Promise<boolean>((resolve) => {
@@ -93,7 +106,8 @@ export function LimitSetsPage() {
   };
 
   const onJobDone = useCallback(
-    (result: LimitSetChangeResponse) => {
+    ({ result }: LimitSetJobStatus) => {
+      if (!result) return;
       setJobId(null);
       afterChange(result.set.name, result);
     },
@@ -112,7 +126,6 @@ export function LimitSetsPage() {
 
   const active = data.projectSets.find((s) => s.active) ?? data.projectSets[0];
   const others = data.projectSets.filter((s) => !s.active);
-  const runningJob = jobId ?? data.openJob?.jobId ?? null;
   const preset = data.presets.find((p) => p.id === presetId) ?? data.presets[0];
   const system = project.unitSystem;
 
@@ -194,7 +207,21 @@ export function LimitSetsPage() {
         }
       />
       {done && <Alert type="success" showIcon closable={{ onClose: () => setDone(null) }} title={done.title} description={done.description} />}
-      {runningJob && <Card size="small"><RecomputeProgress projectId={project.id} jobId={runningJob} onDone={onJobDone} onFailed={onJobFailed} /></Card>}
+      {runningJob && (
+        <Card size="small">
+          <JobProgress
+            poll={recomputeJob}
+            words={RECOMPUTE_JOB_WORDS}
+            onCompleted={onJobDone}
+            onFailed={onJobFailed}
+            note={
+              <Typography.Text type="secondary" style={{ fontSize: 12 }}>
+                The verdicts on every screen change all at once when it completes; until then they follow the set as it was.
+              </Typography.Text>
+            }
+          />
+        </Card>
+      )}
 
       <Card
         title={
