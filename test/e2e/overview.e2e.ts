@@ -60,6 +60,8 @@ async function count(row: Locator, column: string, name: string): Promise<number
 }
 
 test('manager reads the overview and assigns a reviewer; a flag is raised, mailed, answered and closed; the counts and the chart follow', async ({ browser }) => {
+  // Three people and a dozen screens, on a machine that may be busy: more than the default two minutes.
+  test.setTimeout(300_000);
   // ---- The manager opens the project: the overview is its first screen.
   const manager = await signedIn(browser, MANAGER.email);
   await manager.getByText('Halvercote Yard').first().click();
