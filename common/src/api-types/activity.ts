@@ -70,7 +70,7 @@ export const ACTIVITY_ACTIONS = [
   'reviewer.unassigned',
   /** A checker signed off a level (data: levelId, levelName). */
   'sign_off.signed',
-  /** A later revision changed a member on a signed-off level (actor null; data: levelId, levelName, revisionId, revisionNumber, marks). */
+  /** A later revision changed a member on a signed-off level (actor null; data: levelId, levelName, revisionId, revisionNumber, marks, signOffId), or a limit-set change flipped a verdict on it (actor: the manager who made it; data adds limitSetId, limitSetName). */
   'sign_off.voided',
   /** The sign-off was taken back by hand. */
   'sign_off.withdrawn',
