@@ -1,5 +1,5 @@
 import { Injectable } from '@nestjs/common';
-import type { ImportDiff, Verdict } from '@sagline/common/api-types';
+import type { ImportDiff } from '@sagline/common/api-types';
 import type { Trx } from '../db/transaction';
 import { ReviewerAssignmentsRepository } from './reviewer-assignments.repository';
 import { SignOffsService } from './sign-offs.service';
@@ -29,13 +29,7 @@ export class OverviewRevisionHook {
    * job): the sign-offs of levels on which a verdict flipped are voided, the
    * reason naming the set and the marks. Returns the levels voided.
    */
-  onResultsRecomputed(
-    trx: Trx,
-    projectId: number,
-    revision: { id: number; number: number },
-    flips: readonly { mark: string; level: string | null; verdictBefore: Verdict | null; verdictAfter: Verdict | null }[],
-    cause: { kind: 'applied' | 'edited'; limitSetId: number; limitSetName: string; actorId: number | null },
-  ): Promise<string[]> {
-    return this.signOffs.voidFlippedLevels(trx, projectId, revision, flips, cause);
+  onResultsRecomputed(...args: Parameters<SignOffsService['voidFlippedLevels']>): Promise<string[]> {
+    return this.signOffs.voidFlippedLevels(...args);
   }
 }

@@ -21,6 +21,22 @@ interface LevelTouch {
  * A checker's sign-off of a level, refused while a flag on it needs action,
  * voided by the next revision that touches a member on it.
  */
+/** A member whose verdict a limit-set recompute changed, as the sign-off voiding needs it. */
+export interface LevelFlip {
+  mark: string;
+  level: string | null;
+  verdictBefore: Verdict | null;
+  verdictAfter: Verdict | null;
+}
+
+/** Why results were recomputed: a set chosen or the set in use edited, and by whom. */
+export interface RecomputeCause {
+  kind: 'applied' | 'edited';
+  limitSetId: number;
+  limitSetName: string;
+  actorId: number | null;
+}
+
 @Injectable()
 export class SignOffsService {
   constructor(
@@ -145,8 +161,8 @@ export class SignOffsService {
     trx: Trx,
     projectId: number,
     revision: { id: number; number: number },
-    flips: readonly { mark: string; level: string | null; verdictBefore: Verdict | null; verdictAfter: Verdict | null }[],
-    cause: { kind: 'applied' | 'edited'; limitSetId: number; limitSetName: string; actorId: number | null },
+    flips: readonly LevelFlip[],
+    cause: RecomputeCause,
   ): Promise<string[]> {
     const touches = new Map<string, LevelTouch[]>();
     const word = (v: Verdict | null) => v ?? 'unchecked';
