@@ -11,7 +11,9 @@ export default defineConfig({
   timeout: 120_000,
   expect: { timeout: 15_000 },
   workers: 1,
-  retries: 0,
+  // One retry: a few journeys (flags-screens, overview) failed once in a full run on this busy 2-core machine and
+  // passed on their own; a retry that passes is counted and listed as flaky in the report, not hidden.
+  retries: 1,
   outputDir: path.join(__dirname, '..', 'artifacts', 'playwright'),
   use: {
     baseURL: process.env.BASE_URL ?? 'http://127.0.0.1:4100',
