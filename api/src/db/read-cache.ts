@@ -62,9 +62,4 @@ export class ReadCache {
     }
     return text;
   }
-
-  /** Forgets everything (tests; a limit-set change also moves the version). */
-  clear(): void {
-    this.entries.clear();
-  }
 }

@@ -136,9 +136,8 @@ class ThrottledPgStore extends PgStore {
 
   override set(sid: string, sess: session.SessionData, fn?: (err?: unknown) => void): void {
     this.kept.delete(sid);
-    this.dataVersion.bump();
     super.set(sid, sess, (err?: unknown) => {
-      // Once more after the write: a read that began during it must not be kept.
+      // After the write: a read that began during it must not be kept.
       this.kept.delete(sid);
       this.dataVersion.bump();
       fn?.(err);
@@ -148,7 +147,6 @@ class ThrottledPgStore extends PgStore {
   override destroy(sid: string, fn?: (err?: unknown) => void): void {
     this.touched.delete(sid);
     this.kept.delete(sid);
-    this.dataVersion.bump();
     super.destroy(sid, (err?: unknown) => {
       this.kept.delete(sid);
       this.dataVersion.bump();
