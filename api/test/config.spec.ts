@@ -91,6 +91,13 @@ describe('configuration from the environment', () => {
     ]);
   });
 
+  it('keeps answers in memory unless READ_CACHE=off, and refuses any other value', () => {
+    const url = 'postgres://app@db/sagline';
+    expect(parseConfig({ DATABASE_URL: url }).readCache).toBe(true);
+    expect(parseConfig({ DATABASE_URL: url, READ_CACHE: 'off' }).readCache).toBe(false);
+    expect(() => parseConfig({ DATABASE_URL: url, READ_CACHE: 'no' })).toThrow('READ_CACHE "no" is not on or off');
+  });
+
   it('does not print a database password in its errors', () => {
     expect(() => parseConfig({ DATABASE_URL: 'mysql://app:hunter2@db/sagline' })).toThrow(/mysql:\/\/app:\*\*\*@db\/sagline/);
   });
