@@ -17,6 +17,7 @@ import { unlessPath } from './common/unless-path';
 import { ApiValidationPipe } from './common/validation';
 import { serveWebApp } from './common/web-app';
 import type { AppConfig } from './config/app-config';
+import { AnswerReplay } from './db/answer-replay';
 import { SessionStore } from './db/session-store';
 
 /** JSON bodies above this are refused with 413 PAYLOAD_TOO_LARGE (uploads use multipart, not JSON). */
@@ -32,6 +33,8 @@ export interface CreateAppOptions {
  * hand `getHttpServer()` to supertest). Middleware order matters:
  * request id → helmet → web app files → JSON body → session → passport → CSRF
  * → (errors of all of these in our shape) → Nest routes with the global pipe and filter.
+ * In front of all of it, on the server itself, the door that answers a repeated read
+ * (db/answer-replay.ts).
  */
 export async function createApp(config: AppConfig, options: CreateAppOptions = {}): Promise<NestExpressApplication> {
   const app = await NestFactory.create<NestExpressApplication>(AppModule.forRoot(config), {
@@ -90,5 +93,6 @@ export async function createApp(config: AppConfig, options: CreateAppOptions = {
   // After Nest's routes (and its 404 for /api): anything else unknown gets the same shape.
   app.use((req: Request, _res: Response, next: NextFunction) => next(new ApiError('NOT_FOUND', `There is nothing at ${req.method} ${req.path}; check the address.`)));
   app.use(expressErrorHandler);
+  app.get(AnswerReplay).install(app.getHttpServer());
   return app;
 }

@@ -91,11 +91,12 @@ describe('configuration from the environment', () => {
     ]);
   });
 
-  it('keeps answers in memory unless READ_CACHE=off, and refuses any other value', () => {
+  it('keeps answers in memory and replays repeated reads unless told otherwise, and refuses any other value', () => {
     const url = 'postgres://app@db/sagline';
-    expect(parseConfig({ DATABASE_URL: url }).readCache).toBe(true);
-    expect(parseConfig({ DATABASE_URL: url, READ_CACHE: 'off' }).readCache).toBe(false);
-    expect(() => parseConfig({ DATABASE_URL: url, READ_CACHE: 'no' })).toThrow('READ_CACHE "no" is not on or off');
+    expect(parseConfig({ DATABASE_URL: url })).toMatchObject({ readCache: true, answerReplay: true });
+    expect(parseConfig({ DATABASE_URL: url, READ_CACHE: 'pipeline' })).toMatchObject({ readCache: true, answerReplay: false });
+    expect(parseConfig({ DATABASE_URL: url, READ_CACHE: 'off' })).toMatchObject({ readCache: false, answerReplay: false });
+    expect(() => parseConfig({ DATABASE_URL: url, READ_CACHE: 'no' })).toThrow('READ_CACHE "no" is not on, pipeline or off');
   });
 
   it('does not print a database password in its errors', () => {

@@ -29,10 +29,13 @@
  * `--workers n` starts the api with API_WORKERS=n (n processes sharing the port, node:cluster);
  * the api's CPU is then that of all its processes.
  *
- * Each route is measured twice, back to back: on a second api started with READ_CACHE=off (port
- * LOAD_PORT + 1: every session, role and answer read from PostgreSQL) and on the api as shipped
- * (answers kept in memory until the data changes, api/src/db/read-cache.ts); a third line gives
- * the ratios, which hold better than either figure on this shared machine. Before them, the same
+ * Each route is measured three times, back to back: on a second api started with READ_CACHE=off
+ * (port LOAD_PORT + 1: every session, role and answer read from PostgreSQL), on a third with
+ * READ_CACHE=pipeline (LOAD_PORT + 3: sessions, roles and answers kept in memory until the data
+ * changes, api/src/db/read-cache.ts, but every request through the whole pipeline: what a first
+ * read of a page costs) and on the api as shipped (the same, and a repeated read answered at the
+ * door, api/src/db/answer-replay.ts); a last line gives the ratios, which hold better than any
+ * one figure on this shared machine. Before them, the same
  * load on the stack's own floor (stack-floor.server.ts: Express, helmet and express-session
  * answering a small JSON object; no Nest, no database): no route of the api can beat it.
  */
@@ -184,6 +187,7 @@ async function main(): Promise<void> {
   const knex = createKnex(url, { min: 0, max: 2 });
   let api: ChildProcess | null = null;
   let uncached: ChildProcess | null = null;
+  let pipeline: ChildProcess | null = null;
   let floor: ChildProcess | null = null;
   try {
     await migrateLatest(knex);
@@ -207,7 +211,7 @@ async function main(): Promise<void> {
 
     say(`api: node api/dist/main.js on 127.0.0.1:${port} (NODE_ENV=production, ${workers === 1 ? 'one process' : `API_WORKERS=${workers}: ${workers} processes`}), database ${dbName}`);
     const sessionSecret = randomBytes(48).toString('base64');
-    const startApi = async (apiPort: number, readCache: 'on' | 'off'): Promise<ChildProcess> => {
+    const startApi = async (apiPort: number, readCache: 'on' | 'pipeline' | 'off'): Promise<ChildProcess> => {
       // As the start command runs it (API_NODE_FLAGS in database/scripts/stack.mjs).
       const child = spawn(process.execPath, ['--max-semi-space-size=64', mainJs], {
         cwd: ROOT,
@@ -311,10 +315,13 @@ async function main(): Promise<void> {
       const { rows } = await knex.raw<{ rows: { pid: number }[] }>('select pid from pg_stat_activity where datname = current_database() and pid <> pg_backend_pid()');
       return new Map(rows.flatMap((r) => (cpuSeconds(r.pid) === null ? [] : [[r.pid, cpuSeconds(r.pid)!] as [number, number]])));
     };
-    // The same api with READ_CACHE=off beside it (same database and session secret), measured right
-    // before the cached one on each route: the ratio of the two comes from one run on one machine state.
+    // The same api with READ_CACHE=off and with READ_CACHE=pipeline beside it (same database and
+    // session secret), measured right before the shipped one on each route: the ratios come from one
+    // run on one machine state.
     uncached = await startApi(port + 1, 'off');
     const uncachedBase = `http://127.0.0.1:${port + 1}`;
+    pipeline = await startApi(port + 3, 'pipeline');
+    const pipelineBase = `http://127.0.0.1:${port + 3}`;
     say('| route | api | p50 | p95 | p99 | requests/s | non-2xx | CPU per request: api + PostgreSQL | two idle cores could serve |');
     say('|---|---|---|---|---|---|---|---|---|');
     const measure = async (target: ChildProcess, url0: string) => {
@@ -370,7 +377,8 @@ async function main(): Promise<void> {
       if (probe.status !== 200) throw new Error(`GET ${route.path} → ${probe.status} ${JSON.stringify(probe.body).slice(0, 300)}`);
       const runs = [
         { label: 'READ_CACHE=off', m: await measure(uncached, uncachedBase + route.path) },
-        { label: 'cached (default)', m: await measure(api, base + route.path) },
+        { label: 'READ_CACHE=pipeline', m: await measure(pipeline, pipelineBase + route.path) },
+        { label: 'as shipped (on)', m: await measure(api, base + route.path) },
       ];
       for (const { label, m } of runs) {
         // Each api process uses one core at most; they and PostgreSQL share two.
@@ -380,14 +388,17 @@ async function main(): Promise<void> {
           `| ${route.name} | ${label} | ${f(m.p50)} | ${f(m.p95)}${m.p95 <= 50 ? '' : ' (over 50)'} | ${f(m.p99)} | ${m.rps.toFixed(0)} | ${m.result.non2xx + m.result.errors + m.result.timeouts} | ${m.apiMs.toFixed(2)} + ${m.dbMs.toFixed(2)} ms | ${Number.isFinite(ceiling) ? `${ceiling.toFixed(0)} requests/s` : '?'} |`,
         );
       }
-      const [off, on] = runs.map((r) => r.m);
-      say(`|   | cached ÷ off | | ${(on.p95 / off.p95).toFixed(2)}× | | ${(on.rps / off.rps).toFixed(2)}× | | ${((on.apiMs + on.dbMs) / (off.apiMs + off.dbMs)).toFixed(2)}× CPU | |`);
+      const [off, inside, on] = runs.map((r) => r.m);
+      const ratio = (a: typeof on, b: typeof on) => `| ${(a.p95 / b.p95).toFixed(2)}× | | ${(a.rps / b.rps).toFixed(2)}× | | ${((a.apiMs + a.dbMs) / (b.apiMs + b.dbMs)).toFixed(2)}× CPU | |`;
+      say(`|   | on ÷ off | ${ratio(on, off)}`);
+      say(`|   | on ÷ pipeline | ${ratio(on, inside)}`);
     }
     say(`\nload average after the runs: ${loadavg()}`);
     if (keep) say(`kept: ${url}`);
   } finally {
     api?.kill('SIGTERM');
     uncached?.kill('SIGTERM');
+    pipeline?.kill('SIGTERM');
     floor?.kill('SIGTERM');
     await knex.destroy();
     if (!keep) await admin.raw(`drop database if exists "${dbName}" with (force)`);

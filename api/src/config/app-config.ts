@@ -30,6 +30,8 @@ export interface AppConfig {
   jobs: JobConfig;
   /** Keep answers of busy read routes and sessions in memory until the data changes (READ_CACHE; db/data-version.ts). */
   readCache: boolean;
+  /** Answer a repeated read at the door from what the whole pipeline answered (READ_CACHE=on; db/answer-replay.ts). */
+  answerReplay: boolean;
 }
 
 /** Every bad variable, listed in one error so a deploy fails once, not once per variable. */
@@ -61,8 +63,10 @@ const DURATION_UNITS: Record<string, number> = { ms: 1, s: 1000, m: 60_000, h: 3
  *   It decides which address the rate limit counts and whether `Secure` cookies see HTTPS.
  * - MAIL_RETRY_SECONDS (60): how often queued e-mails are retried; 0 disables the timer
  * - IMPORT_* and JOBS_*: import caps and background jobs, listed in import-job-config.ts
- * - READ_CACHE (on): `off` answers every request from the database (no session, role or page kept in
- *   memory); for comparing, or when the database user may not LISTEN
+ * - READ_CACHE (on): `on` keeps sessions, roles and the answers of busy read routes in memory until
+ *   the data changes, and answers a repeated read at the door (db/answer-replay.ts); `pipeline` keeps
+ *   them but sends every request through the whole pipeline; `off` answers every request from the
+ *   database (nothing kept in memory): for comparing, or when the database user may not LISTEN
  */
 export function parseConfig(env: Record<string, string | undefined>): AppConfig {
   const problems: string[] = [];
@@ -119,7 +123,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
   const imports = parseImportVariables(env, problems);
   const jobs = parseJobVariables(env, problems);
   const readCacheRaw = value('READ_CACHE') ?? 'on';
-  if (readCacheRaw !== 'on' && readCacheRaw !== 'off') problems.push(`READ_CACHE "${readCacheRaw}" is not on or off`);
+  if (!['on', 'pipeline', 'off'].includes(readCacheRaw)) problems.push(`READ_CACHE "${readCacheRaw}" is not on, pipeline or off`);
 
   if (problems.length) throw new ConfigError(problems);
   return {
@@ -140,6 +144,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     imports,
     jobs,
     readCache: readCacheRaw !== 'off',
+    answerReplay: readCacheRaw === 'on',
   };
 }
 

@@ -3,6 +3,7 @@ import { APP_INTERCEPTOR } from '@nestjs/core';
 import { createKnex, type Knex } from '@sagline/database';
 import { APP_CONFIG } from '../config/config.tokens';
 import type { AppConfig } from '../config/app-config';
+import { AnswerReplay } from './answer-replay';
 import { DataVersion } from './data-version';
 import { KNEX } from './db.tokens';
 import { ReadCache } from './read-cache';
@@ -21,7 +22,8 @@ class KnexCloser implements OnApplicationShutdown {
 
 /**
  * The Knex provider (one pool per api process), the transaction helper, the session store, and the
- * read cache with the data version it follows (data-version.ts). No queries here.
+ * read cache with the data version it follows (data-version.ts) and the door that replays its
+ * answers (answer-replay.ts). No queries here.
  */
 @Global()
 @Module({
@@ -32,8 +34,9 @@ class KnexCloser implements OnApplicationShutdown {
     DataVersion,
     ReadCache,
     SessionStore,
+    AnswerReplay,
     { provide: APP_INTERCEPTOR, useClass: ReadCacheInterceptor },
   ],
-  exports: [KNEX, TransactionRunner, SessionStore, DataVersion, ReadCache],
+  exports: [KNEX, TransactionRunner, SessionStore, DataVersion, ReadCache, AnswerReplay],
 })
 export class DbModule {}

@@ -1,6 +1,7 @@
 import { Injectable, type CallHandler, type ExecutionContext, type NestInterceptor } from '@nestjs/common';
 import type { Request, Response } from 'express';
 import { map, type Observable, tap } from 'rxjs';
+import { AnswerReplay } from './answer-replay';
 import { DataVersion } from './data-version';
 import { ReadCache } from './read-cache';
 
@@ -15,13 +16,15 @@ const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
  * - an answer that came from the read cache is sent as the JSON text made
  *   the first time it was sent (the same bytes), not serialised again, with
  *   the ETag made then (Express then neither hashes it again nor loses its
- *   304 for a client that already has it).
+ *   304 for a client that already has it); once sent, AnswerReplay may keep
+ *   it to answer the same request again at the door.
  */
 @Injectable()
 export class ReadCacheInterceptor implements NestInterceptor {
   constructor(
     private readonly version: DataVersion,
     private readonly cache: ReadCache,
+    private readonly replay: AnswerReplay,
   ) {}
 
   intercept(context: ExecutionContext, next: CallHandler): Observable<unknown> {
@@ -34,9 +37,11 @@ export class ReadCacheInterceptor implements NestInterceptor {
       map((body: unknown) => {
         const text = this.cache.textOf(body);
         if (text === undefined) return body;
+        const req = http.getRequest<Request>();
         const res = http.getResponse<Response>();
         res.type('application/json');
         res.setHeader('ETag', text.etag);
+        if (req.method === 'GET') this.replay.recordWhenSent(req, res, text);
         return text.json;
       }),
     );

@@ -185,6 +185,15 @@ export class SessionStore implements OnApplicationShutdown {
     return hit.row.id === id && Date.now() - hit.at <= USER_FRESH_MS ? hit.row : undefined;
   }
 
+  /**
+   * Moves a session's expiry as express-session's rolling cookie does on each request (throttled
+   * like every touch), for an answer sent without express-session (answer-replay.ts). A failed
+   * write is of no consequence: the next touch writes it again.
+   */
+  touchExpiry(sid: string, expires: Date): void {
+    this.store.touch?.(sid, { cookie: { expires, originalMaxAge: null } } as unknown as session.SessionData, () => undefined);
+  }
+
   async onApplicationShutdown(): Promise<void> {
     await (this.store as unknown as { close(): Promise<void> }).close();
     await this.pool.end();
