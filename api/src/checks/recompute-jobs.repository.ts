@@ -3,6 +3,7 @@ import type { Knex } from '@sagline/database';
 import type { LimitSetJobState } from '@sagline/common/api-types';
 import { KNEX } from '../db/db.tokens';
 import type { Trx } from '../db/transaction';
+import type { JobFailure } from '../jobs/tracked-job';
 
 export interface RecomputeJobRow {
   id: string;
@@ -16,7 +17,7 @@ export interface RecomputeJobRow {
   step: string | null;
   attempts: number;
   result: unknown;
-  error: { statusCode: number; code: string; message: string; details?: { path?: string; message: string }[] } | null;
+  error: JobFailure | null;
   created_at: Date;
   updated_at: Date;
 }

@@ -2,6 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import type { Knex } from '@sagline/database';
 import type { ImportJobState } from '@sagline/common/api-types';
 import { KNEX } from '../db/db.tokens';
+import type { JobFailure } from './tracked-job';
 
 export interface ImportJobRow {
   id: string;
@@ -15,7 +16,7 @@ export interface ImportJobRow {
   step: string | null;
   attempts: number;
   result: unknown;
-  error: { statusCode: number; code: string; message: string } | null;
+  error: JobFailure | null;
   created_at: Date;
   updated_at: Date;
 }
@@ -69,7 +70,7 @@ export class JobsRepository {
   }
 
   /** `final` false: the job will be started again (state back to queued, the error kept for the record). */
-  async failed(id: string, error: { statusCode: number; code: string; message: string }, final: boolean): Promise<void> {
+  async failed(id: string, error: JobFailure, final: boolean): Promise<void> {
     await this.knex('import_jobs')
       .where({ id })
       .update({ state: final ? 'failed' : 'queued', step: final ? 'Failed' : 'Waiting to try again', error: JSON.stringify(error), updated_at: this.knex.fn.now() });
