@@ -2,6 +2,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import type { Knex } from '@sagline/database';
 import type { FlagStatus, UnitSystem, Verdict } from '@sagline/common/api-types';
 import type { LimitSet } from '@sagline/common/limits';
+import { RESULT_FIELDS, type StoredResultRow } from '../checks/results-table';
 import { KNEX } from '../db/db.tokens';
 
 export interface ExportRevision {
@@ -36,27 +37,8 @@ export interface ExportMember {
   required_i: number | null;
 }
 
-export interface ExportResult {
-  member_id: number;
-  check_name: string;
-  combination: string;
-  rule_id: string;
-  segment_index: number;
-  segment_kind: 'span' | 'overhang';
-  segment_from: number;
-  segment_to: number;
-  x: number;
-  deflection: number;
-  effective_length: number;
-  span_ratio: number | null;
-  limit_ratio: number;
-  max_abs: number | null;
-  plus: number;
-  allowed: number;
-  utilization: number;
-  pass: boolean;
-  required_i: number;
-}
+/** A result of the revision, with its member. */
+export type ExportResult = StoredResultRow & { member_id: number };
 
 @Injectable()
 export class ExportsRepository {
@@ -90,10 +72,7 @@ export class ExportsRepository {
     return this.knex('results')
       .where({ revision_id: revisionId })
       .orderBy([{ column: 'member_id' }, { column: 'id' }])
-      .select(
-        'member_id', 'check_name', 'combination', 'rule_id', 'segment_index', 'segment_kind', 'segment_from', 'segment_to', 'x', 'deflection',
-        'effective_length', 'span_ratio', 'limit_ratio', 'max_abs', 'plus', 'allowed', 'utilization', 'pass', 'required_i',
-      );
+      .select('member_id', ...RESULT_FIELDS);
   }
 
   /** The project and its latest revision (the member facts and limit sources a flags workbook shows). */

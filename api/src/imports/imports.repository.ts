@@ -4,6 +4,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import type { Knex } from '@sagline/database';
 import type { ImportFileType, ImportProblem, UnitSystem } from '@sagline/common/api-types';
 import type { ScheduleMember } from '@sagline/common/schedule';
+import { RESULT_FIELDS, resultValues } from '../checks/results-table';
 import { copyRows } from '../db/copy-rows';
 import { KNEX } from '../db/db.tokens';
 import type { Trx } from '../db/transaction';
@@ -90,10 +91,7 @@ const MEMBER_COLUMNS = [
   'verdict', 'required_i',
 ];
 const LOAD_COLUMNS = ['member_id', 'position', 'case', 'kind', 'x1', 'x2', 'value1', 'value2', 'source_sheet', 'source_row', 'source_column'];
-const RESULT_COLUMNS = [
-  'member_id', 'revision_id', 'check_name', 'combination', 'rule_id', 'segment_index', 'segment_kind', 'segment_from', 'segment_to', 'x',
-  'deflection', 'effective_length', 'span_ratio', 'limit_ratio', 'max_abs', 'plus', 'allowed', 'governing', 'utilization', 'pass', 'required_i',
-];
+const RESULT_COLUMNS = ['member_id', 'revision_id', ...RESULT_FIELDS];
 
 const HEADER = ['id', 'project_id', 'uploaded_by', 'file_name', 'file_type', 'file_size', 'unit_system', 'limit_set_id', 'limit_set_version', 'member_count', 'load_row_count', 'created_at', 'expires_at'];
 
@@ -253,9 +251,6 @@ export async function writeResultRows(
   });
   await copyRows(trx, 'results', RESULT_COLUMNS, results.length, (i) => {
     const { k, result: r } = results[i];
-    return [
-      memberIds[k], revisionId, r.checkName, r.combination, r.ruleId, r.segmentIndex, r.segmentKind, r.segmentFrom, r.segmentTo, r.x,
-      r.deflection, r.effectiveLength, r.spanRatio, r.limitRatio, r.maxAbs, r.plus, r.allowed, r.governing, r.utilization, r.pass, r.requiredI,
-    ];
+    return [memberIds[k], revisionId, ...resultValues(r)];
   }, onRows);
 }

@@ -2,7 +2,8 @@ import type { ImportFieldChange, LimitRuleView, MemberLoadView, MemberResultView
 import { combinationName, describeSource, type LimitRule } from '@sagline/common/limits';
 import type { FieldChange, ScheduleLoad, ScheduleMember } from '@sagline/common/schedule';
 import { fieldText } from '../imports/preview-diff';
-import type { MemberFullRow, MemberListRow, MemberLoadRow, MemberResultRow, RevisionRefRow } from './members.repository';
+import type { StoredResultRow } from '../checks/results-table';
+import type { MemberFullRow, MemberListRow, MemberLoadRow, RevisionRefRow } from './members.repository';
 
 export function toRevisionRef(row: RevisionRefRow): RevisionRef {
   return { id: row.id, number: row.number, label: row.label, createdAt: row.created_at.toISOString() };
@@ -85,7 +86,7 @@ export function toScheduleMember(row: MemberFullRow, loads: MemberLoadRow[]): Sc
   };
 }
 
-export function toResultView(r: MemberResultRow): MemberResultView {
+export function toResultView(r: StoredResultRow): MemberResultView {
   return {
     checkName: r.check_name,
     combination: r.combination,

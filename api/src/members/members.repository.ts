@@ -3,6 +3,7 @@ import { Inject, Injectable } from '@nestjs/common';
 import type { Knex } from '@sagline/database';
 import type { MemberSort, UnitSystem, Verdict } from '@sagline/common/api-types';
 import type { LimitSet } from '@sagline/common/limits';
+import { RESULT_FIELDS, type StoredResultRow } from '../checks/results-table';
 import { KNEX } from '../db/db.tokens';
 import type { Trx } from '../db/transaction';
 
@@ -62,28 +63,6 @@ export interface MemberLoadRow {
   source_sheet: string;
   source_row: number;
   source_column: string | null;
-}
-
-export interface MemberResultRow {
-  check_name: string;
-  combination: string;
-  rule_id: string;
-  segment_index: number;
-  segment_kind: 'span' | 'overhang';
-  segment_from: number;
-  segment_to: number;
-  x: number;
-  deflection: number;
-  effective_length: number;
-  span_ratio: number | null;
-  limit_ratio: number;
-  max_abs: number | null;
-  plus: number;
-  allowed: number;
-  governing: 'ratio' | 'maxAbs';
-  utilization: number;
-  pass: boolean;
-  required_i: number;
 }
 
 /** The member of one revision in its project's history (null fields: not in that revision). */
@@ -435,14 +414,8 @@ export class MembersRepository {
   }
 
   /** Results in the order the engine produced them (check, then segment). */
-  resultsOf(memberId: number): Promise<MemberResultRow[]> {
-    return this.knex('results')
-      .where({ member_id: memberId })
-      .orderBy('id')
-      .select(
-        'check_name', 'combination', 'rule_id', 'segment_index', 'segment_kind', 'segment_from', 'segment_to', 'x', 'deflection',
-        'effective_length', 'span_ratio', 'limit_ratio', 'max_abs', 'plus', 'allowed', 'governing', 'utilization', 'pass', 'required_i',
-      );
+  resultsOf(memberId: number): Promise<StoredResultRow[]> {
+    return this.knex('results').where({ member_id: memberId }).orderBy('id').select(RESULT_FIELDS);
   }
 
   /** The mark in every revision of the project, oldest first (one index probe per revision). */
