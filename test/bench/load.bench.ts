@@ -4,8 +4,8 @@
  *
  * Builds a 10,000-member, 2,000-flag project in a throwaway database, starts
  * the built api (`node api/dist/main.js`, NODE_ENV=production) on its own
- * port, signs in (session cookie) and runs autocannon against the screens a
- * manager opens most:
+ * port, signs in 50 sessions (one per connection, shared round the project's
+ * seven people) and runs autocannon against the screens opened most:
  *   - a Members page:   GET /api/projects/:id/members?verdict=fail&sort=-utilization&page=2
  *   - the flags summary: GET /api/projects/:id/flags/summary
  *   - the Overview:      GET /api/projects/:id/overview
@@ -297,8 +297,11 @@ async function main(): Promise<void> {
     // doing autovacuum's work.
     await knex.raw('vacuum analyze');
 
-    // 3. The load: a signed-in manager's session, 50 connections, each route on its own.
+    // 3. The load: 50 connections, each with its own signed-in session (as 50 browsers would be),
+    // shared round the project's seven people; each route on its own.
     const manager = await signIn('load.manager@firm.example');
+    const sessions: Session[] = [];
+    for (let k = 0; k < connections; k++) sessions.push(k === 0 ? manager : await signIn(people[k % people.length].email));
     const routes = [
       // The floor every signed-in request stands on: session, CSRF token, the user.
       { name: 'Signed-in floor (GET /api/auth/me)', path: '/api/auth/me' },
@@ -325,7 +328,15 @@ async function main(): Promise<void> {
     say('| route | api | p50 | p95 | p99 | requests/s | non-2xx | CPU per request: api + PostgreSQL | two idle cores could serve |');
     say('|---|---|---|---|---|---|---|---|---|');
     const measure = async (target: ChildProcess, url0: string) => {
-      const opts = { url: url0, connections, headers: { cookie: manager.cookieHeader, accept: 'application/json' } };
+      let next = 0;
+      const opts = {
+        url: url0,
+        connections,
+        headers: { accept: 'application/json' },
+        // Each connection its own session; a connection that reconnects takes the next one.
+        setupClient: (client: { setHeaders(h: Record<string, string>): void }) =>
+          client.setHeaders({ cookie: sessions[next++ % sessions.length].cookieHeader, accept: 'application/json' }),
+      };
       await autocannon({ ...opts, duration: 3 });
       const latencies: number[] = [];
       const apiBefore = treeCpuSeconds(target.pid!);
