@@ -35,7 +35,9 @@
  * changes, api/src/db/read-cache.ts, but every request through the whole pipeline: what a first
  * read of a page costs) and on the api as shipped (the same, and a repeated read answered at the
  * door, api/src/db/answer-replay.ts); a last line gives the ratios, which hold better than any
- * one figure on this shared machine. Before them, the same
+ * one figure on this shared machine. A fourth line measures the shipped api again while the checker
+ * comments on a flag every second (a busy project: every write sends every session's next read
+ * the whole way). Before them, the same
  * load on the stack's own floor (stack-floor.server.ts: Express, helmet and express-session
  * answering a small JSON object; no Nest, no database): no route of the api can beat it.
  */
@@ -327,6 +329,26 @@ async function main(): Promise<void> {
     const pipelineBase = `http://127.0.0.1:${port + 3}`;
     say('| route | api | p50 | p95 | p99 | requests/s | non-2xx | CPU per request: api + PostgreSQL | two idle cores could serve |');
     say('|---|---|---|---|---|---|---|---|---|');
+    // A busy project: a comment on a flag every second, through the api (each write moves every
+    // process's data version, so every session's next read goes the whole way and the next
+    // answer is counted again).
+    const commentedFlag = (await knex('flags').where({ project_id: project.id }).orderBy('id').first('id')) as { id: number };
+    const commentEverySecond = () => {
+      let stop = false;
+      let written = 0;
+      const loop = (async () => {
+        while (!stop) {
+          await checker.ok('POST', `/api/projects/${project.id}/flags/${commentedFlag.id}/comments`, { body: 'Load bench: still checking this one.' });
+          written++;
+          await new Promise((r) => setTimeout(r, 1_000));
+        }
+      })();
+      return async () => {
+        stop = true;
+        await loop;
+        return written;
+      };
+    };
     const measure = async (target: ChildProcess, url0: string) => {
       let next = 0;
       const opts = {
@@ -391,6 +413,9 @@ async function main(): Promise<void> {
         { label: 'READ_CACHE=pipeline', m: await measure(pipeline, pipelineBase + route.path) },
         { label: 'as shipped (on)', m: await measure(api, base + route.path) },
       ];
+      const stopComments = commentEverySecond();
+      runs.push({ label: 'as shipped, a flag comment every second', m: await measure(api, base + route.path) });
+      await stopComments();
       for (const { label, m } of runs) {
         // Each api process uses one core at most; they and PostgreSQL share two.
         const ceiling = Math.min((Math.min(workers, 2) * 1000) / m.apiMs, 2000 / (m.apiMs + m.dbMs));
