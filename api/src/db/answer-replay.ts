@@ -11,7 +11,10 @@ import { DataVersion } from './data-version';
 import type { SentText } from './read-cache';
 import { SessionStore } from './session-store';
 
-/** Replayable answers kept per process, by the bytes of their bodies (shared between sessions). */
+/**
+ * Replayable answers kept per process. Sizes count each entry's body, although one body is shared by
+ * every session replaying it (bytesOf): the memory really used is at most this, usually far less.
+ */
 const MAX_ENTRIES = 20_000;
 const MAX_BODY_BYTES = 32 * 1024 * 1024;
 
