@@ -161,6 +161,18 @@ describe('a change of the limit set: flags on flipped members get a note, sign-o
     expect(noted[0].data.flagIds.sort()).toEqual([flag.B1.id, flag.C1.id].sort());
   });
 
+  it('the assignee of those flags gets one e-mail naming the change and each flipped member', async () => {
+    const mails = (await t.mailbox()).filter((m) => m.to.includes(p.engineerUser.email) && m.subject.startsWith('Limit set change'));
+    expect(mails).toHaveLength(1);
+    expect(mails[0].subject).toBe('Limit set change flipped flagged members (Halvercote Yard)');
+    expect(mails[0].text).toContain(`Limit set changed to "${STRICT}" in Halvercote Yard`);
+    for (const f of [flag.B1, flag.C1]) {
+      expect(mails[0].text).toContain(`/projects/${project.id}/flags/${f.id}`);
+    }
+    expect(mails[0].text).toContain(`Limit set changed to "${STRICT}": verdict pass → fail (L/1500 live 1.27)`);
+    expect(mails[0].text).not.toContain(`/flags/${flag.B2.id}`);
+  });
+
   it('an edit of the set in use that flips nothing writes no note and voids nothing', async () => {
     // L2 may be signed off again (C1's flag is waived, C2 has none).
     expect((await p.checker.post(`${base}/levels/${L('L2')}/sign-off`, {})).status).toBe(201);

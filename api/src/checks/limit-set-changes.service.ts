@@ -20,7 +20,7 @@ import { ActivityService } from '../activity/activity.service';
 import type { ProjectAccess } from '../auth/project-access';
 import { ApiError, notFound } from '../common/api-error';
 import { TransactionRunner, type Trx } from '../db/transaction';
-import type { LimitSetCause, RecomputedMemberFlip } from '../flags/flag-revision-notes';
+import type { LimitSetCause, RecomputedMemberFlip, RevisionNotesResult } from '../flags/flag-revision-notes';
 import { FlagsService } from '../flags/flags.service';
 import { OverviewRevisionHook } from '../overview/overview-revision-hook';
 import { JobQueue } from '../jobs/job-queue';
@@ -282,7 +282,8 @@ export class LimitSetChangesService {
    */
   async applyChange(projectId: number, actorId: number | null, change: ActiveChange, onProgress: Progress = () => undefined, jobId?: string): Promise<LimitSetChangeResponse> {
     const actor = await this.actorName(actorId);
-    return this.tx.run(async (trx) => {
+    let notes: RevisionNotesResult | null = null;
+    const response = await this.tx.run(async (trx) => {
       onProgress(0.02, 'Waiting for other changes of this project');
       if (!(await this.repo.lockProject(trx, projectId))) throw notFound(`Project ${projectId} was not found.`);
       const before = await this.repo.findOwn(projectId, change.setId, trx, true);
@@ -306,7 +307,7 @@ export class LimitSetChangesService {
         const cause: LimitSetCause = { kind: change.kind === 'edit' ? 'edited' : 'applied', limitSetId: after.id, limitSetName: after.name, actorId };
         const revision = { id: recomputed.summary.revisionId, number: recomputed.summary.revisionNumber };
         await this.overviewHook.onResultsRecomputed(trx, projectId, revision, recomputed.flips, cause);
-        await this.flags.onResultsRecomputed(trx, projectId, revision, recomputed.flips, cause);
+        notes = await this.flags.onResultsRecomputed(trx, projectId, revision, recomputed.flips, cause);
       }
 
       onProgress(0.97, 'Recording the change');
@@ -346,6 +347,9 @@ export class LimitSetChangesService {
       if (jobId) await this.jobs.completedIn(trx, jobId, response);
       return response;
     });
+    // Committed: the assignees' e-mails about flipped verdicts go now.
+    if (notes) this.flags.deliverRevisionNotes(notes);
+    return response;
   }
 
   /**

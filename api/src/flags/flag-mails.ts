@@ -83,6 +83,18 @@ export function flagsRevisionMail(m: { to: string; projectName: string; revision
   return { to: m.to, subject: `Revision ${m.revisionNumber} changed flagged members (${m.projectName})`, text, html: null };
 }
 
+/** To an assignee, when a change of the project's limit set flipped the verdicts of members their flags are on. */
+export function flagsLimitSetMail(m: { to: string; projectName: string; change: string; notes: { flag: FlagRef; note: string }[] }): OutgoingMail {
+  const text = [
+    `${m.change} in ${m.projectName}: the verdicts of members that flags assigned to you are on have changed:`,
+    '',
+    ...m.notes.map((n) => `${line(n.flag)}\n  ${n.note}`),
+    '',
+    'Check whether each flag still stands.',
+  ].join('\n');
+  return { to: m.to, subject: `Limit set change flipped flagged members (${m.projectName})`, text, html: null };
+}
+
 function quote(text: string): string {
   return text.split('\n').map((l) => `> ${l}`).join('\n');
 }

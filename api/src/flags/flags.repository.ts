@@ -139,6 +139,16 @@ export interface SummaryRows {
   byAssignee: { assignee_id: number | null; assignee_name: string | null; open: number; answered: number; closed: number; waived: number; overdue: number }[];
 }
 
+/** A flag that still follows its member (not closed), with its assignee's address, for automatic notes. */
+export interface OpenOrWaivedFlagRow {
+  id: number;
+  mark: string;
+  status: FlagStatus;
+  title: string;
+  assignee_id: number | null;
+  assignee_email: string | null;
+}
+
 @Injectable()
 export class FlagsRepository {
   constructor(@Inject(KNEX) private readonly knex: Knex) {}
@@ -250,7 +260,7 @@ export class FlagsRepository {
   }
 
   /** Flags on these marks (lower-case) that are not closed, locked: the ones a new revision notes. */
-  openOrWaivedFor(trx: Trx, projectId: number, markKeys: string[]): Promise<{ id: number; mark: string; status: FlagStatus; title: string; assignee_id: number | null; assignee_email: string | null }[]> {
+  openOrWaivedFor(trx: Trx, projectId: number, markKeys: string[]): Promise<OpenOrWaivedFlagRow[]> {
     if (markKeys.length === 0) return Promise.resolve([]);
     return trx('flags as f')
       .leftJoin('users as a', 'a.id', 'f.assignee_id')

@@ -8,13 +8,14 @@ import { APP_CONFIG } from '../config/config.tokens';
 import type { AppConfig } from '../config/app-config';
 import { ReadCache } from '../db/read-cache';
 import { TransactionRunner, type Trx } from '../db/transaction';
+import type { OutgoingMail } from '../mail/mail.transport';
 import { OutboxService } from '../mail/outbox.service';
 import { toMemberFilter } from '../members/member-filter';
 import { MembersRepository, type MemberBrief, type MemberCheckRow, type RevisionRefRow } from '../members/members.repository';
 import type { BulkRaiseFlagsDto } from './dto/bulk-raise-flags.dto';
 import type { ListFlagsQuery } from './dto/list-flags.dto';
 import type { RaiseFlagDto } from './dto/raise-flag.dto';
-import { flagAssignedMail, flagsAssignedMail, flagsRevisionMail, type FlagRef } from './flag-mails';
+import { flagAssignedMail, flagsAssignedMail, flagsLimitSetMail, flagsRevisionMail, type FlagRef } from './flag-mails';
 import {
   limitSetChangeWords,
   limitSetNote,
@@ -27,7 +28,7 @@ import {
 } from './flag-revision-notes';
 import { defaultFlagTitle } from './flag-title';
 import { toFlag, toFlagDetail, toFlagSummary } from './flags.mapper';
-import { FlagsRepository, type FlagFilter, type FlagRow, type NewFlag, type PersonRow } from './flags.repository';
+import { FlagsRepository, type FlagFilter, type FlagRow, type NewFlag, type OpenOrWaivedFlagRow, type PersonRow } from './flags.repository';
 
 /** The link a flag e-mail carries (the web app's flag page). */
 export function flagLink(publicUrl: string, projectId: number, flagId: number): string {
@@ -251,22 +252,9 @@ export class FlagsService {
       { actorId: null, summary: `Revision ${revision.number} changed or removed the members of ${notes.length} flag${notes.length === 1 ? '' : 's'}: ${preview([...new Set(notes.map((n) => n.flag.mark))])}`, data: { revisionId } },
     );
 
-    const projectName = await this.flags.projectName(projectId, trx);
-    const byAssignee = new Map<string, typeof notes>();
-    for (const n of notes) {
-      if (!n.flag.assignee_email) continue;
-      byAssignee.set(n.flag.assignee_email, [...(byAssignee.get(n.flag.assignee_email) ?? []), n]);
-    }
-    const mailIds: number[] = [];
-    for (const [to, list] of byAssignee) {
-      const mail = flagsRevisionMail({
-        to,
-        projectName,
-        revisionNumber: revision.number,
-        notes: list.map((n) => ({ flag: { id: n.flag.id, mark: n.flag.mark, title: n.flag.title, dueDate: null, link: flagLink(this.config.publicUrl, projectId, n.flag.id) }, note: n.text })),
-      });
-      mailIds.push(await this.outbox.enqueue(trx, mail));
-    }
+    const mailIds = await this.queueNoteMails(trx, projectId, notes, (to, projectName, list) =>
+      flagsRevisionMail({ to, projectName, revisionNumber: revision.number, notes: list }),
+    );
     return { notedFlagIds: ids, mailIds };
   }
 
@@ -275,23 +263,25 @@ export class FlagsService {
    * new limit set (LimitSetChangesService.applyChange, inline or as a job):
    * every flag that is not closed, on a mark whose verdict flipped, gets an
    * automatic `revision` event (`Limit set changed to "X": verdict pass → fail
-   * (L/360 live 1.12)`, data.cause 'limit_set'), its version moves on, and one
-   * `flag.revision_noted` activity entry sums it up. No e-mail: the change's
-   * own activity entry names the flipped marks. Returns the flags noted.
+   * (L/360 live 1.12)`, data.cause 'limit_set'), its version moves on, one
+   * `flag.revision_noted` activity entry sums it up, and each assignee gets
+   * one e-mail, queued in the same transaction. After the commit, pass the
+   * result to `deliverRevisionNotes`.
    */
-  async onResultsRecomputed(trx: Trx, projectId: number, revision: { id: number; number: number }, flips: readonly RecomputedMemberFlip[], cause: LimitSetCause): Promise<number[]> {
+  async onResultsRecomputed(trx: Trx, projectId: number, revision: { id: number; number: number }, flips: readonly RecomputedMemberFlip[], cause: LimitSetCause): Promise<RevisionNotesResult> {
+    const none: RevisionNotesResult = { notedFlagIds: [], mailIds: [] };
     const byKey = new Map<string, RecomputedMemberFlip>();
     for (const f of flips) if (f.verdictBefore !== f.verdictAfter) byKey.set(f.mark.trim().toLowerCase(), f);
-    if (byKey.size === 0) return [];
+    if (byKey.size === 0) return none;
     const flagged = await this.flags.openOrWaivedFor(trx, projectId, [...byKey.keys()]);
-    if (flagged.length === 0) return [];
-    const notes = flagged.map((flag) => ({ flag, flip: byKey.get(flag.mark.toLowerCase())! }));
-    return this.writeAutomaticNotes(
+    if (flagged.length === 0) return none;
+    const notes = flagged.map((flag) => ({ flag, flip: byKey.get(flag.mark.toLowerCase())!, text: limitSetNote(cause, byKey.get(flag.mark.toLowerCase())!) }));
+    const ids = await this.writeAutomaticNotes(
       trx,
       projectId,
-      notes.map(({ flag, flip }) => ({
+      notes.map(({ flag, flip, text }) => ({
         flagId: flag.id,
-        text: limitSetNote(cause, flip),
+        text,
         data: {
           cause: 'limit_set',
           limitSetId: cause.limitSetId,
@@ -313,6 +303,29 @@ export class FlagsService {
         data: { revisionId: revision.id, limitSetId: cause.limitSetId },
       },
     );
+    const mailIds = await this.queueNoteMails(trx, projectId, notes, (to, projectName, list) =>
+      flagsLimitSetMail({ to, projectName, change: limitSetChangeWords(cause), notes: list }),
+    );
+    return { notedFlagIds: ids, mailIds };
+  }
+
+  /** One e-mail per assignee of the noted flags, made by `mail` and queued in the transaction; returns their outbox ids. */
+  private async queueNoteMails(
+    trx: Trx,
+    projectId: number,
+    notes: readonly { flag: OpenOrWaivedFlagRow; text: string }[],
+    mail: (to: string, projectName: string, notes: { flag: FlagRef; note: string }[]) => OutgoingMail,
+  ): Promise<number[]> {
+    const projectName = await this.flags.projectName(projectId, trx);
+    const byAssignee = new Map<string, { flag: FlagRef; note: string }[]>();
+    for (const n of notes) {
+      if (!n.flag.assignee_email) continue;
+      const ref = { id: n.flag.id, mark: n.flag.mark, title: n.flag.title, dueDate: null, link: flagLink(this.config.publicUrl, projectId, n.flag.id) };
+      byAssignee.set(n.flag.assignee_email, [...(byAssignee.get(n.flag.assignee_email) ?? []), { flag: ref, note: n.text }]);
+    }
+    const mailIds: number[] = [];
+    for (const [to, list] of byAssignee) mailIds.push(await this.outbox.enqueue(trx, mail(to, projectName, list)));
+    return mailIds;
   }
 
   /** Automatic `revision` events on flags, their versions moved on, one activity entry; returns the flag ids. */
@@ -329,7 +342,7 @@ export class FlagsService {
     return ids;
   }
 
-  /** After the commit of the transaction onRevisionCommitted ran in: send its e-mails now. */
+  /** After the commit of the transaction onRevisionCommitted or onResultsRecomputed ran in: send its e-mails now. */
   deliverRevisionNotes(result: RevisionNotesResult): void {
     this.outbox.deliverSoon(result.mailIds);
   }
