@@ -123,7 +123,8 @@ describe('a change of the limit set: flags on flipped members get a note, sign-o
   it('choosing a stricter set voids the sign-off of the level whose members failed, says why, and keeps the others', async () => {
     const res = await p.manager.post(`${base}/limit-sets/${strict.id}/use`, {});
     expect(res.status).toBe(200);
-    expect(res.body.recompute).toMatchObject({ flippedCount: 3 });
+    // The answer says what the change did beyond the verdicts (the Limit sets screen shows it).
+    expect(res.body.recompute).toMatchObject({ flippedCount: 3, signOffsVoided: ['L2'], flagsNoted: 2 });
 
     const s = await signOffs(p.checker, project.id);
     expect(s.L2).toMatchObject({

@@ -306,8 +306,9 @@ export class LimitSetChangesService {
         onProgress(0.95, 'Noting flipped verdicts on flags and sign-offs');
         const cause: LimitSetCause = { kind: change.kind === 'edit' ? 'edited' : 'applied', limitSetId: after.id, limitSetName: after.name, actorId };
         const revision = { id: recomputed.summary.revisionId, number: recomputed.summary.revisionNumber };
-        await this.overviewHook.onResultsRecomputed(trx, projectId, revision, recomputed.flips, cause);
+        recomputed.summary.signOffsVoided = await this.overviewHook.onResultsRecomputed(trx, projectId, revision, recomputed.flips, cause);
         notes = await this.flags.onResultsRecomputed(trx, projectId, revision, recomputed.flips, cause);
+        recomputed.summary.flagsNoted = notes.notedFlagIds.length;
       }
 
       onProgress(0.97, 'Recording the change');
@@ -412,6 +413,8 @@ export class LimitSetChangesService {
       after: { pass: outcome.pass, fail: outcome.fail, unchecked: outcome.unchecked },
       flipped: flips.slice(0, 50).map((f) => ({ mark: f.mark, level: f.level, from: f.verdictBefore, to: f.verdictAfter })),
       flippedCount: flips.length,
+      signOffsVoided: [],
+      flagsNoted: 0,
     };
     return { summary, flips };
   }

@@ -141,6 +141,10 @@ export interface RecomputeSummary {
   /** Members whose verdict changed (pass → fail or fail → pass), at most 50 listed. */
   flipped: { mark: string; level: string; from: 'pass' | 'fail' | null; to: 'pass' | 'fail' | null }[];
   flippedCount: number;
+  /** Levels whose sign-off a flipped verdict voided, by name. */
+  signOffsVoided: string[];
+  /** Flags on flipped members that got an automatic note (their assignees an e-mail). */
+  flagsNoted: number;
 }
 
 /** 200: the change is stored; `recompute` is null when nothing needed recomputing (an inactive set, or no revision). */

@@ -119,7 +119,7 @@ describe('Limit sets', () => {
             step: 'Done',
             result: {
               set: { ...stricterSet, active: true },
-              recompute: { revisionId: 31, revisionNumber: 1, memberCount: 391, before: { pass: 363, fail: 28 }, after: { pass: 361, fail: 30, unchecked: 0 }, flipped: [{ mark: 'B12', level: 'L3', from: 'pass', to: 'fail' }, { mark: 'B14', level: 'L3', from: 'pass', to: 'fail' }], flippedCount: 2 },
+              recompute: { revisionId: 31, revisionNumber: 1, memberCount: 391, before: { pass: 363, fail: 28 }, after: { pass: 361, fail: 30, unchecked: 0 }, flipped: [{ mark: 'B12', level: 'L3', from: 'pass', to: 'fail' }, { mark: 'B14', level: 'L3', from: 'pass', to: 'fail' }], flippedCount: 2, signOffsVoided: ['L3'], flagsNoted: 1 },
             },
           },
         };
@@ -136,6 +136,8 @@ describe('Limit sets', () => {
     expect(screen.getByRole('progressbar', { name: 'Recompute progress' })).toBeInTheDocument();
     expect(await screen.findByText(`Revision 1 now follows "${stricterSet.name}".`, {}, { timeout: 4000 })).toBeInTheDocument();
     expect(screen.getByText(/391 members recomputed: 28 → 30 failing, 2 verdicts flipped: B12 pass → fail, B14 pass → fail/)).toBeInTheDocument();
+    expect(screen.getByText('1 flag on a flipped member got a note; their assignees are e-mailed.')).toBeInTheDocument();
+    expect(screen.getByText('Sign-off voided on L3: that level needs signing off again.')).toBeInTheDocument();
     const [use] = api.calls('POST /api/projects/7/limit-sets/:setId/use');
     expect(use.path).toBe('/api/projects/7/limit-sets/12/use');
     expect(use.body).toEqual({ version: 2 });

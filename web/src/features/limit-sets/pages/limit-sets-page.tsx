@@ -85,6 +85,17 @@ export function LimitSetsPage() {
                 `: ${shown.map((f) => `${f.mark} ${f.from ?? 'unchecked'} → ${f.to ?? 'unchecked'}`).join(', ')}${r.flippedCount > shown.length ? ` and ${r.flippedCount - shown.length} more` : ''}`}
               .
             </span>
+            {r.flagsNoted > 0 && (
+              <span>
+                {r.flagsNoted} {r.flagsNoted === 1 ? 'flag on a flipped member got a note' : 'flags on flipped members got a note'}; their assignees are
+                e-mailed.
+              </span>
+            )}
+            {r.signOffsVoided.length > 0 && (
+              <span>
+                Sign-off voided on {r.signOffsVoided.join(', ')}: {r.signOffsVoided.length === 1 ? 'that level needs' : 'those levels need'} signing off again.
+              </span>
+            )}
             <Link to={paths.projectMembers.getHref(project.id, { verdict: 'fail' })}>See the failing members</Link>
           </Flex>
         ) : result.set.active ? (
