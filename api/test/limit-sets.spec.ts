@@ -277,6 +277,42 @@ describe('limit sets: presets, copies, edits and the recompute', () => {
     expect(res.body).toMatchObject({ name: `${active.name} (copy)`, active: false, version: 1 });
     expect(res.body.rules).toEqual(active.rules);
   });
+
+  it('deletes a set the project does not use; the set in use is refused with the way out; revisions keep their copy', async () => {
+    const sets = (await overview()).projectSets;
+    const active = sets.find((s) => s.active)!;
+    const before = await snapshot();
+    const refused = await manager.delete(`${base}/${active.id}`);
+    expectError(refused, 409, 'CONFLICT', `"${active.name}" is the set the project is checked against, so it cannot be deleted. Choose another set with "Use this set" first, then delete this one.`);
+    expect(await snapshot()).toEqual(before);
+
+    // The revision was checked against the preset copy first used; make sure that one is not in use, then delete it.
+    const revision = await t.knex('revisions').where({ project_id: project.id }).first('limit_set_id', 'limit_set');
+    const unused = sets.find((s) => !s.active)!;
+    const res = await manager.delete(`${base}/${unused.id}`);
+    expect(res.status).toBe(204);
+    expect((await overview()).projectSets.map((s) => s.id)).not.toContain(unused.id);
+    expect((await manager.delete(`${base}/${unused.id}`)).status).toBe(404);
+    const entry = await t.knex('activity').where({ project_id: project.id }).orderBy('id', 'desc').first('action', 'summary', 'data');
+    expect(entry).toMatchObject({ action: 'limit_set.deleted', data: { limitSetId: unused.id, limitSetName: unused.name } });
+    expect(entry.summary).toBe(`Mireille Fontaine deleted the limit set "${unused.name}" (not in use; revisions checked against it keep their copy of its rules).`);
+    // The revision's own copy of the rules it was checked against is untouched; the Members screen still reads.
+    const after = await t.knex('revisions').where({ project_id: project.id }).first('limit_set_id', 'limit_set');
+    expect(after.limit_set).toEqual(revision.limit_set);
+    expect(after.limit_set_id).toBe(revision.limit_set_id === unused.id ? null : revision.limit_set_id);
+    expect(Object.keys(await verdicts())).toEqual(['B1', 'B2', 'B3']);
+
+    // A set that a change being applied is about to use stays until the change is done.
+    const next = (await manager.post(base, { fromPreset: 'ibc-2021' })).body as ProjectLimitSetView;
+    const jobId = '2c8f4c1e-7a0b-4d3e-9f6a-5b1d2e3c4f50';
+    await t.knex('recompute_jobs').insert({ id: jobId, project_id: project.id, limit_set_id: next.id, kind: 'use', state: 'queued', progress: 0 });
+    try {
+      expectError(await manager.delete(`${base}/${next.id}`), 409, 'CONFLICT', /is being applied right now; wait for it to finish/);
+    } finally {
+      await t.knex('recompute_jobs').where({ id: jobId }).delete();
+    }
+    expect((await manager.delete(`${base}/${next.id}`)).status).toBe(204);
+  });
 });
 
 describe('limit sets: a large project recomputes as a background job', () => {
@@ -398,7 +434,20 @@ describe('limit sets: role × route matrix', () => {
       },
     },
     { name: 'POST limit-sets/:setId/use', allowed: WRITERS, okStatus: 200, write: true, call: (c) => c.post(`${base}/${spareId}/use`, {}) },
+    {
+      name: 'DELETE limit-sets/:setId',
+      allowed: WRITERS,
+      okStatus: 204,
+      write: true,
+      call: async (c) => {
+        const res = await c.delete(`${base}/${deletable[0]}`);
+        if (res.status === 204) deletable.shift();
+        return res;
+      },
+    },
   ];
+  /** Unused copies, one for each person allowed to delete. */
+  const deletable: number[] = [];
 
   beforeAll(async () => {
     t = await TestApp.start();
@@ -411,6 +460,7 @@ describe('limit sets: role × route matrix', () => {
     base = `/api/projects/${project.id}/limit-sets`;
     spare = (await client.manager.post(base, { fromPreset: 'us-ibc-2021-aci-318-19' })).body;
     spareId = spare.id;
+    for (const _ of WRITERS) deletable.push((await client.manager.post(base, { fromPreset: 'ibc-2021' })).body.id);
     await t.knex('recompute_jobs').insert({ id: jobId, project_id: project.id, limit_set_id: spareId, kind: 'use', state: 'completed', progress: 1, step: 'Done', result: JSON.stringify({ set: spare, recompute: null }) });
   });
   afterAll(() => t.close());

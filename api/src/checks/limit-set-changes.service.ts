@@ -242,6 +242,36 @@ export class LimitSetChangesService {
     return this.changeActive(projectId, actorId, { kind: 'use', setId, version });
   }
 
+  // ------------------------------------------------------------------ delete
+
+  /**
+   * Deletes a set the project does not use. The set in use (409: choose another first) and a set a
+   * change being applied is about to use (409) stay. Revisions checked against it keep their copy.
+   */
+  async remove(projectId: number, setId: number, actorId: number): Promise<void> {
+    const actor = await this.actorName(actorId);
+    await this.tx.run(async (trx) => {
+      if (!(await this.repo.lockProject(trx, projectId))) throw notFound(`Project ${projectId} was not found.`);
+      const row = await this.repo.findOwn(projectId, setId, trx, true);
+      if (!row) throw notFound(`The project has no limit set ${setId}.`);
+      if ((await this.repo.activeId(projectId, trx)) === setId) {
+        throw new ApiError('CONFLICT', `"${row.name}" is the set the project is checked against, so it cannot be deleted. Choose another set with "Use this set" first, then delete this one.`);
+      }
+      const open = await this.jobs.findOpen(projectId);
+      if (open && open.limit_set_id === setId) {
+        throw new ApiError('CONFLICT', `A change to "${row.name}" is being applied right now; wait for it to finish, then delete the set if you still want to.`);
+      }
+      await this.repo.deleteOwn(trx, projectId, setId);
+      await this.activity.record(trx, {
+        projectId,
+        actorId,
+        action: 'limit_set.deleted',
+        summary: `${actor} deleted the limit set "${row.name}" (not in use; revisions checked against it keep their copy of its rules).`,
+        data: { limitSetId: setId, limitSetName: row.name, version: row.version },
+      });
+    });
+  }
+
   // ------------------------------------------------------------------ the change of the active set
 
   private async changeActive(projectId: number, actorId: number, change: ActiveChange): Promise<ChangeOutcome> {

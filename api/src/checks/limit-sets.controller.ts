@@ -1,4 +1,4 @@
-import { Body, Controller, Get, HttpCode, Param, Post, Put, Res } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, Post, Put, Res } from '@nestjs/common';
 import type { Response } from 'express';
 import type { LimitSetChangeResponse, LimitSetJobAccepted, LimitSetJobStatus, LimitSetsOverview, ProjectLimitSetView } from '@sagline/common/api-types';
 import { CurrentProject, CurrentUser, ProjectRole } from '../auth/auth.decorators';
@@ -10,7 +10,7 @@ import { LimitSetChangesService, type ChangeOutcome } from './limit-set-changes.
 
 /**
  * The Limit sets screen: everyone on the project reads; managers and admins
- * copy, edit and choose (viewers and the other roles get 403; outsiders 404).
+ * copy, edit, choose and delete (viewers and the other roles get 403; outsiders 404).
  */
 @Controller('projects/:projectId/limit-sets')
 export class LimitSetsController {
@@ -60,6 +60,14 @@ export class LimitSetsController {
     @Res({ passthrough: true }) res: Response,
   ): Promise<LimitSetChangeResponse | LimitSetJobAccepted> {
     return answer(res, await this.changes.use(project.projectId, setId, user.id, dto.version));
+  }
+
+  /** 204: a set the project does not use is gone (409 for the set in use). */
+  @Delete(':setId')
+  @HttpCode(204)
+  @ProjectRole('manager')
+  async remove(@CurrentProject() project: ProjectAccess, @CurrentUser() user: SessionUser, @Param('setId', ParseIdPipe) setId: number): Promise<void> {
+    await this.changes.remove(project.projectId, setId, user.id);
   }
 }
 

@@ -129,6 +129,15 @@ export class LimitSetsRepository {
     return n > 0;
   }
 
+  /**
+   * Deletes one of the project's sets. Revisions checked against it keep their own copy of its rules
+   * (`revisions.limit_set`; their `limit_set_id` becomes null); an upload still waiting to be committed
+   * against it goes with it (`import_drafts` cascade: such a draft could no longer be committed anyway).
+   */
+  async deleteOwn(trx: Trx, projectId: number, setId: number): Promise<void> {
+    await trx('limit_sets').where({ id: setId, project_id: projectId }).delete();
+  }
+
   async setActive(trx: Trx, projectId: number, setId: number): Promise<void> {
     await trx('projects').where({ id: projectId }).update({ limit_set_id: setId });
   }

@@ -80,6 +80,8 @@ export const ACTIVITY_ACTIONS = [
   'limit_set.edited',
   /** The project's limit set changed, results recomputed (data: limitSetId, limitSetName, revisionId). */
   'limit_set.applied',
+  /** A set the project did not use deleted (data: limitSetId, limitSetName, version). */
+  'limit_set.deleted',
   'team.added',
   'team.invited',
   'team.role_changed',

@@ -42,7 +42,7 @@ describe('Limit sets', () => {
     expect(screen.queryByRole('button', { name: 'Use this set' })).not.toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Copy into project' })).not.toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Copy' })).not.toBeInTheDocument();
-    expect(screen.getByText(/Managers and admins copy, edit and choose limit sets/)).toBeInTheDocument();
+    expect(screen.getByText(/Managers and admins copy, edit, choose and delete limit sets/)).toBeInTheDocument();
     // The presets are there to browse.
     expect(screen.getByRole('table', { name: /Rules of the preset IBC 2021/ })).toBeInTheDocument();
   });
@@ -188,5 +188,40 @@ describe('Limit sets', () => {
     expect(await screen.findByText(`Copied the preset "IBC 2021 (Table 1604.3, glass, masonry)" into the project as "${copy.name}".`)).toBeInTheDocument();
     expect(api.calls('POST /api/projects/7/limit-sets')[0].body).toEqual({ fromPreset: 'ibc-2021' });
     expect(await screen.findByRole('form', { name: `Edit ${copy.name}` })).toBeInTheDocument();
+  });
+
+  it('deletes a set the project does not use after a confirmation; the set in use has no Delete', async () => {
+    setCsrfCookie('csrf-7');
+    let deleted = false;
+    const api = limitSetsApi(manager, 'manager', true, {
+      'DELETE /api/projects/7/limit-sets/:setId': () => {
+        deleted = true;
+        return { status: 204 };
+      },
+      'GET /api/projects/7/limit-sets': () => ({ body: deleted ? { ...overview(true), projectSets: [activeSet] } : overview(true) }),
+    });
+    const { user } = renderApp('/projects/7/limit-sets');
+    const card = await activeCard();
+    expect(within(card).queryByRole('button', { name: 'Delete' })).not.toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Delete' }));
+    const dialog = await screen.findByRole('dialog');
+    expect(within(dialog).getAllByText(`Delete "${stricterSet.name}"?`).length).toBeGreaterThan(0);
+    expect(within(dialog).getByText(/Revisions checked against it keep their own copy of its rules/)).toBeInTheDocument();
+    await user.click(within(dialog).getByRole('button', { name: 'Delete the set' }));
+    expect(await screen.findByText(`Deleted "${stricterSet.name}".`)).toBeInTheDocument();
+    expect(api.calls('DELETE /api/projects/7/limit-sets/:setId')[0].path).toBe(`/api/projects/7/limit-sets/${stricterSet.id}`);
+    await waitFor(() => expect(screen.queryByRole('button', { name: 'Delete' })).not.toBeInTheDocument());
+  });
+
+  it('says why the server refused a delete', async () => {
+    setCsrfCookie('csrf-7');
+    limitSetsApi(manager, 'manager', true, {
+      'DELETE /api/projects/7/limit-sets/:setId': apiError(409, 'CONFLICT', `A change to "${stricterSet.name}" is being applied right now; wait for it to finish, then delete the set if you still want to.`),
+    });
+    const { user } = renderApp('/projects/7/limit-sets');
+    await activeCard();
+    await user.click(screen.getByRole('button', { name: 'Delete' }));
+    await user.click(within(await screen.findByRole('dialog')).getByRole('button', { name: 'Delete the set' }));
+    expect(await screen.findByText(/is being applied right now; wait for it to finish/)).toBeInTheDocument();
   });
 });

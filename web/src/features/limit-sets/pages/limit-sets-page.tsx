@@ -20,6 +20,7 @@ import { PageLoading } from '@/components/page-loading';
 import { useCurrentProject } from '@/lib/current-project';
 import { applyLimitSet } from '../api/apply-limit-set';
 import { copyLimitSet } from '../api/copy-limit-set';
+import { deleteLimitSet } from '../api/delete-limit-set';
 import { useLimitSetJob } from '../api/get-limit-set-job';
 import { useLimitSets } from '../api/get-limit-sets';
 import { isLimitSetJob, updateLimitSet, type LimitSetChangeOutcome } from '../api/update-limit-set';
@@ -180,6 +181,25 @@ export function LimitSetsPage() {
     }
   };
 
+  const remove = async (set: ProjectLimitSetView) => {
+    const sure = await confirm(
+      `Delete "${set.name}"?`,
+      'The project does not use it, so no verdict changes. Revisions checked against it keep their own copy of its rules.',
+      'Delete the set',
+    );
+    if (!sure) return;
+    setBusySet(set.id);
+    try {
+      await deleteLimitSet(project.id, set.id);
+      setDone({ title: `Deleted "${set.name}".`, description: 'No verdict changed.' });
+      await mutate();
+    } catch (e) {
+      void message.error(errorMessage(e));
+    } finally {
+      setBusySet(null);
+    }
+  };
+
   const body = (set: ProjectLimitSetView) =>
     editing === set.id ? (
       <RulesEditor key={`${set.id}-${set.version}`} set={set} system={system} saving={saving} onSave={(b) => save(set, b)} onCancel={() => setEditing(null)} />
@@ -201,6 +221,11 @@ export function LimitSetsPage() {
         <Button size="small" onClick={() => void copy({ fromSetId: set.id }, `"${set.name}"`)}>
           Copy
         </Button>
+        {!set.active && (
+          <Button size="small" danger disabled={busySet === set.id || runningJob !== null} onClick={() => void remove(set)}>
+            Delete
+          </Button>
+        )}
       </Space>
     ) : null;
 
@@ -246,7 +271,7 @@ export function LimitSetsPage() {
         <Flex vertical gap={12}>
           <ResultsState results={data.results} active={active} />
           {!data.canEdit && (
-            <Typography.Text type="secondary">Managers and admins copy, edit and choose limit sets; you can read them and their sources.</Typography.Text>
+            <Typography.Text type="secondary">Managers and admins copy, edit, choose and delete limit sets; you can read them and their sources.</Typography.Text>
           )}
           {body(active)}
         </Flex>
