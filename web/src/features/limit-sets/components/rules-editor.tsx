@@ -16,6 +16,7 @@ export interface RuleValues {
   combination?: string;
   ratio?: number | null;
   maxAbs?: number | null;
+  plus?: number | null;
   materials?: string[];
   document?: string;
   edition?: string;
@@ -40,16 +41,16 @@ export function fieldOf(path: string | undefined): (string | number)[] | null {
   const m = /^rules\[(\d+)\]\.(?:source\.)?([A-Za-z]+)/.exec(p);
   if (!m) return null;
   const field = m[2];
-  const known = ['category', 'check', 'combination', 'ratio', 'maxAbs', 'materials', 'document', 'edition', 'clause', 'trust', 'note'];
+  const known = ['category', 'check', 'combination', 'ratio', 'maxAbs', 'plus', 'materials', 'document', 'edition', 'clause', 'trust', 'note'];
   return known.includes(field) ? ['rules', Number(m[1]), field] : null;
 }
 
 /**
  * The rules of one of the project's sets, editable: member category, check
- * name, combination, ratio, optional absolute cap (in the project's units),
- * materials, and the source of each rule. Fields the form does not show
- * (an additive allowance, a length range, long-term cases) are kept as they
- * were. `onSave` gets the request; when it throws the API's validation
+ * name, combination, ratio, optional absolute cap and additive allowance
+ * (span/n + allowance; both in the project's units), materials, and the
+ * source of each rule. Fields the form does not show (a length range,
+ * long-term cases) are kept as they were. `onSave` gets the request; when it throws the API's validation
  * error, each problem is put next to its field.
  */
 export function RulesEditor({
@@ -84,6 +85,7 @@ export function RulesEditor({
       combination: formatCombination(r.combination),
       ratio: r.ratio,
       maxAbs: r.maxAbs === null ? null : Number(fromSI(r.maxAbs, unit).toPrecision(6)),
+      plus: r.plus === null ? null : Number(fromSI(r.plus, unit).toPrecision(6)),
       materials: r.materials ?? [],
       document: r.source.document,
       edition: r.source.edition,
@@ -107,7 +109,7 @@ export function RulesEditor({
         combination: 'value' in parsed ? parsed.value : {},
         ratio: r.ratio as number,
         maxAbs: r.maxAbs === null || r.maxAbs === undefined ? null : toSI(r.maxAbs, unit),
-        plus: was?.plus ?? null,
+        plus: r.plus === null || r.plus === undefined ? null : toSI(r.plus, unit),
         materials: r.materials && r.materials.length ? r.materials : null,
         lengthRange: was?.lengthRange ?? null,
         longTermCases: was?.longTermCases ?? null,
@@ -245,6 +247,20 @@ export function RulesEditor({
               ),
             },
             {
+              title: `Plus (${unit})`,
+              key: 'plus',
+              width: 110,
+              render: (_, f) => (
+                <Form.Item
+                  name={[f.name, 'plus']}
+                  style={{ margin: 0 }}
+                  rules={[{ type: 'number', min: Number.MIN_VALUE, message: 'An allowance added to span/n must be above zero, or left empty.' }]}
+                >
+                  <InputNumber aria-label={`Allowance of rule ${f.name + 1}`} placeholder="none" style={{ width: '100%' }} />
+                </Form.Item>
+              ),
+            },
+            {
               title: 'Materials',
               key: 'materials',
               width: 150,
@@ -312,7 +328,7 @@ export function RulesEditor({
               <div>
                 <Button
                   icon={<PlusOutlined />}
-                  onClick={() => add({ category: set.categories[0]?.id ?? 'floor', check: '', combination: 'L', ratio: 360, maxAbs: null, materials: [], document: '', edition: '', clause: '', trust: 'common practice', note: '' })}
+                  onClick={() => add({ category: set.categories[0]?.id ?? 'floor', check: '', combination: 'L', ratio: 360, maxAbs: null, plus: null, materials: [], document: '', edition: '', clause: '', trust: 'common practice', note: '' })}
                 >
                   Add rule
                 </Button>

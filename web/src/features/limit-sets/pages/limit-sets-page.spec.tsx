@@ -81,6 +81,8 @@ describe('Limit sets', () => {
     // Fixed: the confirmation says the verdicts will be recomputed; the server's problem lands on its field.
     await user.clear(ratio);
     await user.type(ratio, '480');
+    // An allowance added to span/n (as IBC §1604.3.7's l/240 + 1/4 in), in the project's millimetres.
+    await user.type(within(form).getByRole('spinbutton', { name: 'Allowance of rule 1' }), '6.35');
     await user.clear(combination);
     await user.type(combination, 'L');
     await user.type(document, 'Halvercote Yard basis of design');
@@ -99,6 +101,9 @@ describe('Limit sets', () => {
     expect(sent.rules[2]).toMatchObject({ id: 'supports-masonry.total', source: { document: 'Halvercote Yard basis of design' } });
     // The cap went back in metres, as it came.
     expect(sent.rules[2].maxAbs).toBeCloseTo(0.00762, 12);
+    const plus = (sent.rules as unknown as { plus: number | null }[]).map((r) => r.plus);
+    expect(plus[0]).toBeCloseTo(0.00635, 12);
+    expect(plus.slice(1).every((p) => p === null)).toBe(true);
     // Typing into many antd fields is slow on a shared machine.
   }, 45_000);
 
