@@ -41,12 +41,20 @@ async function openFlags(page: Page): Promise<string> {
   return projectUrl;
 }
 
+/**
+ * Picks an option of a single-choice antd Select and waits until the pick has taken: the list closed and the
+ * select showing the option. A click on an option can be lost on a busy machine (the select keeps its old value,
+ * here "Nobody yet", and the flags are then skipped, not assigned), so the pick is tried again until it has
+ * taken. No Escape afterwards: once the list has closed, Escape closes the whole dialog.
+ */
 async function pick(page: Page, select: Locator, text: RegExp) {
-  await select.click();
-  const option = page.locator('.ant-select-dropdown:visible .ant-select-item-option').filter({ hasText: text }).first();
-  await expect(option).toBeVisible();
-  await option.click();
-  await page.keyboard.press('Escape');
+  const shown = select.locator('xpath=ancestor::div[contains(@class,"ant-select")][1]');
+  await expect(async () => {
+    if ((await select.getAttribute('aria-expanded')) !== 'true') await select.click({ timeout: 5_000 });
+    await page.locator('.ant-select-dropdown:visible .ant-select-item-option').filter({ hasText: text }).first().click({ timeout: 5_000 });
+    await expect(select).toHaveAttribute('aria-expanded', 'false', { timeout: 3_000 });
+    await expect(shown).toContainText(text, { timeout: 3_000 });
+  }).toPass({ timeout: 45_000 });
 }
 
 test('flags table, filters in the address, board, flag pages by role and a stale write', async ({ browser }) => {
