@@ -39,11 +39,31 @@ async function signedIn(browser: Browser, email: string): Promise<Page> {
   return page;
 }
 
+/**
+ * Picks an option of a single-choice antd Select and waits until the pick has taken: the list closed and the
+ * select showing the option. A click on an option can be lost on a busy machine (the list then stays open over
+ * the dialog's buttons, or the select keeps its old value), so the pick is tried again until it has taken, and
+ * a pick that never takes fails here, not minutes later on a covered button. No Escape afterwards: once the
+ * list has closed, Escape closes the whole dialog.
+ */
 async function pick(page: Page, select: Locator, text: RegExp): Promise<void> {
+  const shown = select.locator('xpath=ancestor::div[contains(@class,"ant-select")][1]');
+  await expect(async () => {
+    if ((await select.getAttribute('aria-expanded')) !== 'true') await select.click({ timeout: 5_000 });
+    await page.locator('.ant-select-dropdown:visible .ant-select-item-option').filter({ hasText: text }).first().click({ timeout: 5_000 });
+    await expect(select).toHaveAttribute('aria-expanded', 'false', { timeout: 3_000 });
+    await expect(shown).toContainText(text, { timeout: 3_000 });
+  }).toPass({ timeout: 45_000 });
+}
+
+/** Ticks an option of a multiple-choice antd Select (its list stays open), then closes the list with Escape. */
+async function tick(page: Page, select: Locator, text: RegExp): Promise<void> {
   await select.click();
   const option = page.locator('.ant-select-dropdown:visible .ant-select-item-option').filter({ hasText: text }).first();
-  await expect(option).toBeVisible();
   await option.click();
+  await expect(option).toHaveAttribute('aria-selected', 'true');
+  await page.keyboard.press('Escape');
+  await expect(select).toHaveAttribute('aria-expanded', 'false');
 }
 
 async function json<T>(page: Page, url: string): Promise<T> {
@@ -137,8 +157,7 @@ test('manager reads the overview and assigns a reviewer; a flag is raised, maile
   // (and any the reviewer had already).
   const hers = (await json<MembersPage>(manager, `${api}/members?level=${levelId}&verdict=fail&reviewer=${priyaId}&pageSize=100`)).items;
   expect(hers.map((m) => m.mark)).toContain(member.mark);
-  await pick(manager, manager.getByRole('combobox', { name: 'Reviewer', exact: true }), new RegExp(`^${OWN_REVIEWER} · `));
-  await manager.keyboard.press('Escape');
+  await tick(manager, manager.getByRole('combobox', { name: 'Reviewer', exact: true }), new RegExp(`^${OWN_REVIEWER} · `));
   await expect(manager).toHaveURL(new RegExp(`reviewer=${priyaId}`));
   await expect(manager.getByText(`${hers.length} match the filters`)).toBeVisible();
   await expect(membersTable.locator('tr.ant-table-row')).toHaveCount(hers.length);
@@ -170,7 +189,6 @@ test('manager reads the overview and assigns a reviewer; a flag is raised, maile
   const raise = checker.getByRole('dialog');
   await raise.getByLabel('Comment').fill(`Over its limit on ${levelName}; please look at the section (${stamp}).`);
   await pick(checker, raise.getByRole('combobox', { name: 'Assignee' }), new RegExp(ENGINEER.name));
-  await checker.keyboard.press('Escape');
   await raise.getByRole('button', { name: 'Raise flag' }).click();
   await expect(raise).toBeHidden();
   const flagLink = checker.getByRole('region', { name: `Flags of ${member.mark}` }).getByRole('link').filter({ hasText: member.mark }).first();
