@@ -74,9 +74,13 @@ test('flags table, filters in the address, board, flag pages by role and a stale
   await shot(checker, '01-table');
 
   // The overdue link of the counts is a filter in the address, with the API's name.
-  await checker.getByLabel('Flag counts').getByRole('link', { name: /overdue/ }).click();
+  const overdueLink = checker.getByLabel('Flag counts').getByRole('link', { name: /overdue/ });
+  const overdue = Number((await overdueLink.innerText()).match(/(\d+) overdue/)![1]);
+  await overdueLink.click();
   await expect(checker).toHaveURL(/\/flags\?overdue=true$/);
   await expect(checker.getByRole('switch', { name: 'Overdue only' })).toBeChecked();
+  // The table keeps the previous rows while the filtered list loads: wait for the overdue ones before reading them.
+  await expect(rows).toHaveCount(overdue);
   for (const row of await rows.all()) await expect(row).toContainText('(overdue)');
   // Opened afresh, the address shows the same view.
   await checker.goto(checker.url());
