@@ -133,9 +133,9 @@ test('a viewer reads the limit sets and their sources but gets no way to change 
   await page.getByLabel('Project sections').getByText('Limit sets', { exact: true }).click();
   await expect(page).toHaveURL(/\/limit-sets$/);
   await expect(page.getByText(/^In use: /)).toBeVisible();
-  await expect(page.getByText(/Managers and admins copy, edit and choose limit sets/)).toBeVisible();
+  await expect(page.getByText(/Managers and admins copy, edit, choose and delete limit sets/)).toBeVisible();
   await expect(page.getByText('Table 1604.3, floor members, L column').first()).toBeVisible();
-  for (const name of ['Edit rules', 'Use this set', 'Copy into project', 'Copy']) {
+  for (const name of ['Edit rules', 'Use this set', 'Copy into project', 'Copy', 'Delete']) {
     await expect(page.getByRole('button', { name, exact: true })).toHaveCount(0);
   }
   await shot(page, '07-viewer');
