@@ -41,6 +41,8 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
   private boss: PgBoss | null = null;
   private starting: Promise<PgBoss> | null = null;
   private closed = false;
+  /** The next attempt to start the worker after a failed one (database not reachable yet). */
+  private retryTimer: NodeJS.Timeout | null = null;
 
   constructor(
     @Inject(APP_CONFIG) private readonly config: AppConfig,
@@ -70,14 +72,21 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
   }
 
   private retryWorker(e: Error): void {
-    this.logger.error(`job queue could not start (${e.message}); retrying in 10 s`);
     this.starting = null;
+    // Stopped meanwhile (the app is shutting down): nothing to retry, and nothing to report.
     if (this.closed) return;
-    setTimeout(() => this.startWorker().catch((err: Error) => this.retryWorker(err)), 10_000).unref();
+    this.logger.error(`job queue could not start (${e.message}); retrying in 10 s`);
+    this.retryTimer = setTimeout(() => {
+      this.retryTimer = null;
+      if (this.closed) return;
+      this.startWorker().catch((err: Error) => this.retryWorker(err));
+    }, 10_000);
+    this.retryTimer.unref();
   }
 
   private async startWorker(): Promise<void> {
     const boss = await this.started();
+    if (this.closed) return;
     for (const [name, handler] of this.handlers) {
       await boss.work<unknown>(name, { pollingIntervalSeconds: this.settings.pollSeconds, includeMetadata: true }, async (jobs) => {
         for (const job of jobs) await handler({ id: job.id, data: job.data, retryCount: job.retryCount });
@@ -103,6 +112,8 @@ export class JobQueue implements OnApplicationBootstrap, OnApplicationShutdown {
 
   async onApplicationShutdown(): Promise<void> {
     this.closed = true;
+    if (this.retryTimer) clearTimeout(this.retryTimer);
+    this.retryTimer = null;
     const boss = this.boss ?? (this.starting ? await this.starting.catch(() => null) : null);
     if (!boss) return;
     // Let a running job finish (its transaction commits or rolls back), then close pg-boss's pool.
