@@ -242,7 +242,7 @@ export function RulesEditor({
                   style={{ margin: 0 }}
                   rules={[{ type: 'number', min: Number.MIN_VALUE, message: 'A cap must be above zero, or left empty.' }]}
                 >
-                  <InputNumber aria-label={`Cap of rule ${f.name + 1}`} placeholder="none" style={{ width: '100%' }} />
+                  <InputNumber aria-label={`Cap of rule ${f.name + 1}`} placeholder="—" style={{ width: '100%' }} />
                 </Form.Item>
               ),
             },
@@ -256,7 +256,7 @@ export function RulesEditor({
                   style={{ margin: 0 }}
                   rules={[{ type: 'number', min: Number.MIN_VALUE, message: 'An allowance added to span/n must be above zero, or left empty.' }]}
                 >
-                  <InputNumber aria-label={`Allowance of rule ${f.name + 1}`} placeholder="none" style={{ width: '100%' }} />
+                  <InputNumber aria-label={`Allowance of rule ${f.name + 1}`} placeholder="—" style={{ width: '100%' }} />
                 </Form.Item>
               ),
             },
