@@ -312,8 +312,8 @@ export class LimitSetChangesService {
    */
   async applyChange(projectId: number, actorId: number | null, change: ActiveChange, onProgress: Progress = () => undefined, jobId?: string): Promise<LimitSetChangeResponse> {
     const actor = await this.actorName(actorId);
-    let notes: RevisionNotesResult | null = null;
-    const response = await this.tx.run(async (trx) => {
+    const { response, notes } = await this.tx.run(async (trx) => {
+      let notes: RevisionNotesResult | null = null;
       onProgress(0.02, 'Waiting for other changes of this project');
       if (!(await this.repo.lockProject(trx, projectId))) throw notFound(`Project ${projectId} was not found.`);
       const before = await this.repo.findOwn(projectId, change.setId, trx, true);
@@ -376,7 +376,7 @@ export class LimitSetChangesService {
       onProgress(0.99, 'Saving');
       const response = { set: toProjectLimitSetView(after, after.id), recompute };
       if (jobId) await this.jobs.completedIn(trx, jobId, response);
-      return response;
+      return { response, notes };
     });
     // Committed: the assignees' e-mails about flipped verdicts go now.
     if (notes) this.flags.deliverRevisionNotes(notes);

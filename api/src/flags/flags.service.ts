@@ -275,7 +275,10 @@ export class FlagsService {
     if (byKey.size === 0) return none;
     const flagged = await this.flags.openOrWaivedFor(trx, projectId, [...byKey.keys()]);
     if (flagged.length === 0) return none;
-    const notes = flagged.map((flag) => ({ flag, flip: byKey.get(flag.mark.toLowerCase())!, text: limitSetNote(cause, byKey.get(flag.mark.toLowerCase())!) }));
+    const notes = flagged.map((flag) => {
+      const flip = byKey.get(flag.mark.toLowerCase())!;
+      return { flag, flip, text: limitSetNote(cause, flip) };
+    });
     const ids = await this.writeAutomaticNotes(
       trx,
       projectId,
@@ -321,7 +324,9 @@ export class FlagsService {
     for (const n of notes) {
       if (!n.flag.assignee_email) continue;
       const ref = { id: n.flag.id, mark: n.flag.mark, title: n.flag.title, dueDate: null, link: flagLink(this.config.publicUrl, projectId, n.flag.id) };
-      byAssignee.set(n.flag.assignee_email, [...(byAssignee.get(n.flag.assignee_email) ?? []), { flag: ref, note: n.text }]);
+      const list = byAssignee.get(n.flag.assignee_email);
+      if (list) list.push({ flag: ref, note: n.text });
+      else byAssignee.set(n.flag.assignee_email, [{ flag: ref, note: n.text }]);
     }
     const mailIds: number[] = [];
     for (const [to, list] of byAssignee) mailIds.push(await this.outbox.enqueue(trx, mail(to, projectName, list)));

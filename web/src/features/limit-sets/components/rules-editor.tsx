@@ -173,7 +173,19 @@ export function RulesEditor({
       </Flex>
       <Form.List name="rules">
         {(fields, { add, remove }) => {
-          const columns: ColumnsType<(typeof fields)[number]> = [
+          type Field = (typeof fields)[number];
+          /** An optional length in the project's deflection unit (the cap, the allowance): empty is none. */
+          const optionalLength = (key: 'maxAbs' | 'plus', title: string, label: string, message: string): ColumnsType<Field>[number] => ({
+            title,
+            key,
+            width: 110,
+            render: (_, f) => (
+              <Form.Item name={[f.name, key]} style={{ margin: 0 }} rules={[{ type: 'number', min: Number.MIN_VALUE, message }]}>
+                <InputNumber aria-label={`${label} of rule ${f.name + 1}`} placeholder="—" style={{ width: '100%' }} />
+              </Form.Item>
+            ),
+          });
+          const columns: ColumnsType<Field> = [
             {
               title: 'Member category',
               key: 'category',
@@ -232,34 +244,8 @@ export function RulesEditor({
                 </Form.Item>
               ),
             },
-            {
-              title: `Cap (${unit})`,
-              key: 'maxAbs',
-              width: 110,
-              render: (_, f) => (
-                <Form.Item
-                  name={[f.name, 'maxAbs']}
-                  style={{ margin: 0 }}
-                  rules={[{ type: 'number', min: Number.MIN_VALUE, message: 'A cap must be above zero, or left empty.' }]}
-                >
-                  <InputNumber aria-label={`Cap of rule ${f.name + 1}`} placeholder="—" style={{ width: '100%' }} />
-                </Form.Item>
-              ),
-            },
-            {
-              title: `Plus (${unit})`,
-              key: 'plus',
-              width: 110,
-              render: (_, f) => (
-                <Form.Item
-                  name={[f.name, 'plus']}
-                  style={{ margin: 0 }}
-                  rules={[{ type: 'number', min: Number.MIN_VALUE, message: 'An allowance added to span/n must be above zero, or left empty.' }]}
-                >
-                  <InputNumber aria-label={`Allowance of rule ${f.name + 1}`} placeholder="—" style={{ width: '100%' }} />
-                </Form.Item>
-              ),
-            },
+            optionalLength('maxAbs', `Cap (${unit})`, 'Cap', 'A cap must be above zero, or left empty.'),
+            optionalLength('plus', `Plus (${unit})`, 'Allowance', 'An allowance added to span/n must be above zero, or left empty.'),
             {
               title: 'Materials',
               key: 'materials',
